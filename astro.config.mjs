@@ -13,6 +13,8 @@ const extraHosts = (process.env.ALLOWED_HOSTS ?? '')
 
 export default defineConfig({
 	output: 'server',
+	// npm test builds into its own folder so that a running `npm start` keeps its build.
+	outDir: process.env.AMPLEDGER_DIST || './dist',
 	// Middleware mode: src/server.ts mounts the handler inside Express so uploads can go through multer.
 	adapter: node({ mode: 'middleware' }),
 	integrations: [react(), tailwind({ applyBaseStyles: false }), auth()],

@@ -45,7 +45,7 @@ function newestMtime(p) {
 
 /** Builds the app when any source is newer than the last build. */
 export function buildIfStale(env = process.env) {
-	const entry = path.join(root, 'dist', 'server', 'entry.mjs');
+	const entry = path.join(path.resolve(root, env.AMPLEDGER_DIST || 'dist'), 'server', 'entry.mjs');
 	const built = fs.existsSync(entry) ? fs.statSync(entry).mtimeMs : 0;
 	const sources = ['src', 'public', 'templates', 'astro.config.mjs', 'auth.config.ts', 'tailwind.config.mjs', 'package.json', 'package-lock.json'];
 	const newest = Math.max(...sources.map((s) => newestMtime(path.join(root, s))));

@@ -32,7 +32,7 @@ export default function SignInForm({ next, initialError }: { next?: string; init
 	});
 
 	return (
-		<form onSubmit={onSubmit} noValidate className="space-y-4" aria-describedby={message ? 'sign-in-message' : undefined}>
+		<form method="post" onSubmit={onSubmit} noValidate className="space-y-4" aria-describedby={message ? 'sign-in-message' : undefined}>
 			{message && (
 				<div id="sign-in-message" role="alert" className="rounded-md border border-signal-violation/40 bg-red-50 p-3 text-sm text-signal-violation">
 					{message}

@@ -55,7 +55,7 @@ export default function SignUpForm() {
 	});
 
 	return (
-		<form onSubmit={onSubmit} noValidate className="space-y-4">
+		<form method="post" onSubmit={onSubmit} noValidate className="space-y-4">
 			{message && (
 				<div role="alert" className="rounded-md border border-signal-violation/40 bg-red-50 p-3 text-sm text-signal-violation">
 					{message}
