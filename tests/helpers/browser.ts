@@ -27,7 +27,9 @@ export async function newContext(options: { mobile?: boolean } = {}): Promise<Br
 		viewport: options.mobile ? { width: 390, height: 844 } : { width: 1280, height: 860 },
 		baseURL: BASE_URL,
 	});
-	context.on('close', () => fs.rmSync(dir, { recursive: true, force: true }));
+	context.on('close', () => {
+		fs.promises.rm(dir, { recursive: true, force: true, maxRetries: 5 }).catch(() => undefined);
+	});
 	return context;
 }
 

@@ -1,6 +1,6 @@
 import { DEMO_ACCOUNTS } from '../../seeds/data/demo-accounts';
 
-export const BASE_URL = process.env.BASE_URL ?? 'http://127.0.0.1:4399';
+export const BASE_URL = process.env.AMPLEDGER_BASE_URL ?? 'http://127.0.0.1:4399';
 
 /** A client with its own cookie jar, talking to the real server over HTTP. */
 export class HttpClient {
