@@ -35,14 +35,20 @@ export function ensureBinaries() {
 	let bin = findBinaries();
 	if (bin) return bin;
 	if (!isRoot) {
-		console.error('[db] PostgreSQL server binaries are missing. Install them with:\n  sudo apt-get update && sudo apt-get install -y postgresql');
+		console.error(
+			'[db] PostgreSQL server binaries are missing. Install them with:\n  sudo apt-get update && sudo apt-get install -y postgresql',
+		);
 		process.exit(1);
 	}
 	log('installing PostgreSQL from Debian packages (apt-get install postgresql)…');
 	execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit' });
-	execFileSync('apt-get', ['install', '-y', '-qq', 'postgresql'], { stdio: 'inherit', env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
+	execFileSync('apt-get', ['install', '-y', '-qq', 'postgresql'], {
+		stdio: 'inherit',
+		env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
+	});
 	bin = findBinaries();
-	if (!bin) throw new Error('PostgreSQL was installed but its binaries were not found under /usr/lib/postgresql');
+	if (!bin)
+		throw new Error('PostgreSQL was installed but its binaries were not found under /usr/lib/postgresql');
 	return bin;
 }
 
@@ -103,7 +109,15 @@ function initCluster(bin, s) {
 	chownToServerUser(s.dir);
 	chownToServerUser(path.dirname(pwfile));
 	const r = runAsServerUser(path.join(bin, 'initdb'), [
-		'-D', s.data, '-U', s.user, `--pwfile=${pwfile}`, '--auth=scram-sha-256', '-E', 'UTF8', '--locale=C.UTF-8',
+		'-D',
+		s.data,
+		'-U',
+		s.user,
+		`--pwfile=${pwfile}`,
+		'--auth=scram-sha-256',
+		'-E',
+		'UTF8',
+		'--locale=C.UTF-8',
 	]);
 	fs.rmSync(path.dirname(pwfile), { recursive: true, force: true });
 	if (r.status !== 0) throw new Error(`initdb failed:\n${r.stderr || r.stdout}`);
@@ -129,11 +143,21 @@ export async function start(env = process.env) {
 		fs.mkdirSync(s.sock, { recursive: true });
 		chownToServerUser(s.sock);
 		const r = runAsServerUser(path.join(bin, 'pg_ctl'), [
-			'-D', s.data, '-l', path.join(s.sock, 'postgres.log'), '-w', '-t', '30',
-			'-o', `-c listen_addresses=127.0.0.1 -p ${s.port} -k ${s.sock}`, 'start',
+			'-D',
+			s.data,
+			'-l',
+			path.join(s.sock, 'postgres.log'),
+			'-w',
+			'-t',
+			'30',
+			'-o',
+			`-c listen_addresses=127.0.0.1 -p ${s.port} -k ${s.sock}`,
+			'start',
 		]);
 		if (r.status !== 0) {
-			const logText = fs.existsSync(path.join(s.sock, 'postgres.log')) ? fs.readFileSync(path.join(s.sock, 'postgres.log'), 'utf8').slice(-2000) : '';
+			const logText = fs.existsSync(path.join(s.sock, 'postgres.log'))
+				? fs.readFileSync(path.join(s.sock, 'postgres.log'), 'utf8').slice(-2000)
+				: '';
 			throw new Error(`PostgreSQL did not start on port ${s.port}:\n${r.stderr || r.stdout}\n${logText}`);
 		}
 		log(`started on 127.0.0.1:${s.port}`);
@@ -144,7 +168,13 @@ export async function start(env = process.env) {
 
 /** Creates the app's database when it does not exist. */
 async function ensureDatabase(s, { fresh = false } = {}) {
-	const client = new pg.Client({ host: '127.0.0.1', port: s.port, user: s.user, password: s.password, database: 'postgres' });
+	const client = new pg.Client({
+		host: '127.0.0.1',
+		port: s.port,
+		user: s.user,
+		password: s.password,
+		database: 'postgres',
+	});
 	await client.connect();
 	try {
 		const ident = '"' + s.database.replace(/"/g, '""') + '"';

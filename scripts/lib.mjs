@@ -26,11 +26,15 @@ export function ensureAuthSecret() {
 
 /** Runs the Knex CLI with the TypeScript loader. */
 export function knex(args, env = process.env) {
-	const r = spawnSync(process.execPath, ['--import', 'tsx', 'node_modules/knex/bin/cli.js', ...args, '--knexfile', 'knexfile.ts'], {
-		cwd: root,
-		env,
-		stdio: 'inherit',
-	});
+	const r = spawnSync(
+		process.execPath,
+		['--import', 'tsx', 'node_modules/knex/bin/cli.js', ...args, '--knexfile', 'knexfile.ts'],
+		{
+			cwd: root,
+			env,
+			stdio: 'inherit',
+		},
+	);
 	if (r.status !== 0) throw new Error(`knex ${args.join(' ')} failed`);
 }
 
@@ -47,7 +51,16 @@ function newestMtime(p) {
 export function buildIfStale(env = process.env) {
 	const entry = path.join(path.resolve(root, env.AMPLEDGER_DIST || 'dist'), 'server', 'entry.mjs');
 	const built = fs.existsSync(entry) ? fs.statSync(entry).mtimeMs : 0;
-	const sources = ['src', 'public', 'templates', 'astro.config.mjs', 'auth.config.ts', 'tailwind.config.mjs', 'package.json', 'package-lock.json'];
+	const sources = [
+		'src',
+		'public',
+		'templates',
+		'astro.config.mjs',
+		'auth.config.ts',
+		'tailwind.config.mjs',
+		'package.json',
+		'package-lock.json',
+	];
 	const newest = Math.max(...sources.map((s) => newestMtime(path.join(root, s))));
 	if (built && built >= newest) {
 		console.log('[build] up to date');
@@ -64,7 +77,11 @@ export function buildIfStale(env = process.env) {
 
 /** Starts the Express server as a child process. */
 export function startServer(env) {
-	return spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { cwd: root, env, stdio: ['ignore', 'inherit', 'inherit'] });
+	return spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+		cwd: root,
+		env,
+		stdio: ['ignore', 'inherit', 'inherit'],
+	});
 }
 
 /** Waits until a URL answers, or throws after the timeout. */
@@ -87,10 +104,15 @@ export function ensureChromium() {
 	const bin = process.env.CHROMIUM_PATH || '/usr/bin/chromium';
 	if (fs.existsSync(bin)) return bin;
 	if (process.getuid?.() !== 0) {
-		throw new Error('Chromium is missing. Install it with: sudo apt-get update && sudo apt-get install -y chromium');
+		throw new Error(
+			'Chromium is missing. Install it with: sudo apt-get update && sudo apt-get install -y chromium',
+		);
 	}
 	console.log('[test] installing chromium from Debian packages…');
 	execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit' });
-	execFileSync('apt-get', ['install', '-y', '-qq', 'chromium'], { stdio: 'inherit', env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
+	execFileSync('apt-get', ['install', '-y', '-qq', 'chromium'], {
+		stdio: 'inherit',
+		env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
+	});
 	return bin;
 }

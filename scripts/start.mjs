@@ -28,10 +28,13 @@ const port = process.env.PORT || '4321';
 const server = startServer({ ...process.env, HOST: host, PORT: port });
 
 if (!production) {
-	const { DEMO_ACCOUNTS } = await import('../seeds/data/demo-accounts.ts').catch(() => ({ DEMO_ACCOUNTS: null }));
+	const { DEMO_ACCOUNTS } = await import('../seeds/data/demo-accounts.ts').catch(() => ({
+		DEMO_ACCOUNTS: null,
+	}));
 	if (DEMO_ACCOUNTS) {
 		console.log('\nDemo accounts (demo only):');
-		for (const a of Object.values(DEMO_ACCOUNTS)) console.log(`  ${a.role.padEnd(26)} ${a.email.padEnd(42)} ${a.password}`);
+		for (const a of Object.values(DEMO_ACCOUNTS))
+			console.log(`  ${a.role.padEnd(26)} ${a.email.padEnd(42)} ${a.password}`);
 	}
 }
 console.log(`\nOpen http://${host}:${port}  (database on 127.0.0.1:${s.port}; Ctrl-C stops)\n`);

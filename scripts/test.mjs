@@ -55,14 +55,25 @@ function runVitest() {
 	return new Promise((resolve) => {
 		const child = spawn(
 			process.execPath,
-			['node_modules/vitest/vitest.mjs', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${resultFile}`, ...args],
+			[
+				'node_modules/vitest/vitest.mjs',
+				'run',
+				'--reporter=default',
+				'--reporter=json',
+				`--outputFile.json=${resultFile}`,
+				...args,
+			],
 			{ cwd: root, env, stdio: 'inherit' },
 		);
 		child.on('exit', (code) => {
 			let summary = null;
 			if (fs.existsSync(resultFile)) {
 				const r = JSON.parse(fs.readFileSync(resultFile, 'utf8'));
-				summary = { passed: r.numPassedTests, failed: r.numFailedTests + (r.numRuntimeErrorTestSuites ?? 0), skipped: r.numPendingTests + r.numTodoTests };
+				summary = {
+					passed: r.numPassedTests,
+					failed: r.numFailedTests + (r.numRuntimeErrorTestSuites ?? 0),
+					skipped: r.numPendingTests + r.numTodoTests,
+				};
 				if (!r.success && summary.failed === 0) summary.failed = 1;
 			}
 			resolve({ code: code ?? 1, summary });
@@ -89,7 +100,9 @@ try {
 	exitCode = code;
 	await cleanup();
 	if (summary) {
-		console.log(`\nSummary: ${summary.passed} passed, ${summary.failed} failed${summary.skipped ? `, ${summary.skipped} skipped` : ''}`);
+		console.log(
+			`\nSummary: ${summary.passed} passed, ${summary.failed} failed${summary.skipped ? `, ${summary.skipped} skipped` : ''}`,
+		);
 	} else {
 		console.log('\nSummary: 0 passed, 1 failed (the test runner did not report)');
 		exitCode = exitCode || 1;

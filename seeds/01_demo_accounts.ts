@@ -5,32 +5,50 @@ import { DEMO_ACCOUNTS, DEMO_FIRM, DEMO_JURISDICTION, DEMO_PROPERTIES } from './
 /** Demo accounts for the invented scenario: a firm, a jurisdiction, two homes, an administrator. */
 export async function seed(knex: Knex): Promise<void> {
 	if (process.env.NODE_ENV === 'production' && process.env.AMPLEDGER_ALLOW_DEMO !== '1') {
-		throw new Error('The demo seed is not for production databases (set AMPLEDGER_ALLOW_DEMO=1 to override).');
+		throw new Error(
+			'The demo seed is not for production databases (set AMPLEDGER_ALLOW_DEMO=1 to override).',
+		);
 	}
 	await knex.transaction(async (trx) => {
 		await trx.raw(
 			'TRUNCATE site_administrators, property_owners, properties, jurisdiction_inspectors, jurisdictions, firm_members, firms, users, sign_in_attempts CASCADE',
 		);
 		const ids: Record<keyof typeof DEMO_ACCOUNTS, string> = {} as never;
-		for (const [key, a] of Object.entries(DEMO_ACCOUNTS) as [keyof typeof DEMO_ACCOUNTS, (typeof DEMO_ACCOUNTS)[keyof typeof DEMO_ACCOUNTS]][]) {
+		for (const [key, a] of Object.entries(DEMO_ACCOUNTS) as [
+			keyof typeof DEMO_ACCOUNTS,
+			(typeof DEMO_ACCOUNTS)[keyof typeof DEMO_ACCOUNTS],
+		][]) {
 			const [row] = await trx('users')
 				.insert({ email: a.email, name: a.name, password_hash: bcrypt.hashSync(a.password, 10) })
 				.returning('id');
 			ids[key] = row.id;
 		}
 		const [firm] = await trx('firms')
-			.insert({ name: DEMO_FIRM.name, licence_number: DEMO_FIRM.licenceNumber, phone: DEMO_FIRM.phone, address: DEMO_FIRM.address })
+			.insert({
+				name: DEMO_FIRM.name,
+				licence_number: DEMO_FIRM.licenceNumber,
+				phone: DEMO_FIRM.phone,
+				address: DEMO_FIRM.address,
+			})
 			.returning('id');
 		await trx('firm_members').insert([
 			{ firm_id: firm.id, user_id: ids.owner, member_role: 'owner' },
 			{ firm_id: firm.id, user_id: ids.electrician, member_role: 'member' },
 		]);
 		const [jurisdiction] = await trx('jurisdictions')
-			.insert({ name: DEMO_JURISDICTION.name, code_edition: DEMO_JURISDICTION.codeEdition, address: DEMO_JURISDICTION.address })
+			.insert({
+				name: DEMO_JURISDICTION.name,
+				code_edition: DEMO_JURISDICTION.codeEdition,
+				address: DEMO_JURISDICTION.address,
+			})
 			.returning('id');
 		await trx('jurisdiction_inspectors').insert({ jurisdiction_id: jurisdiction.id, user_id: ids.inspector });
-		const [home1] = await trx('properties').insert({ address: DEMO_PROPERTIES.penhallow, jurisdiction_id: jurisdiction.id }).returning('id');
-		const [home2] = await trx('properties').insert({ address: DEMO_PROPERTIES.calderwood, jurisdiction_id: jurisdiction.id }).returning('id');
+		const [home1] = await trx('properties')
+			.insert({ address: DEMO_PROPERTIES.penhallow, jurisdiction_id: jurisdiction.id })
+			.returning('id');
+		const [home2] = await trx('properties')
+			.insert({ address: DEMO_PROPERTIES.calderwood, jurisdiction_id: jurisdiction.id })
+			.returning('id');
 		await trx('property_owners').insert([
 			{ property_id: home1.id, user_id: ids.homeowner },
 			{ property_id: home2.id, user_id: ids.homeowner2 },

@@ -5,6 +5,7 @@
 import express, { type ErrorRequestHandler, type RequestHandler } from 'express';
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
+import { mountSketchUpload } from './sketch-upload';
 
 const root = path.resolve(import.meta.dirname, '..');
 const distDir = process.env.AMPLEDGER_DIST ?? path.join(root, 'dist');
@@ -24,12 +25,16 @@ export async function createApp() {
 		next();
 	});
 
+	// Multipart uploads go through multer before the static files and Astro's handler.
+	mountSketchUpload(app);
+
 	app.use(
 		express.static(path.join(distDir, 'client'), {
 			index: false,
 			maxAge: '1h',
 			setHeaders(res, filePath) {
-				if (filePath.includes(`${path.sep}_astro${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+				if (filePath.includes(`${path.sep}_astro${path.sep}`))
+					res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
 			},
 		}),
 	);
@@ -38,7 +43,9 @@ export async function createApp() {
 	const onError: ErrorRequestHandler = (err, _req, res, _next) => {
 		console.error('[ampledger] unhandled', err);
 		if (res.headersSent) return;
-		res.status(500).json({ error: { code: 'internal', message: 'Something went wrong on our side. Please try again.' } });
+		res
+			.status(500)
+			.json({ error: { code: 'internal', message: 'Something went wrong on our side. Please try again.' } });
 	};
 	app.use(onError);
 	return app;

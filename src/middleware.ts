@@ -17,7 +17,9 @@ export const onRequest = defineMiddleware(async (context, next) => {
 	if (isApi(pathname) && !SAFE_METHODS.has(context.request.method)) {
 		const origin = context.request.headers.get('origin');
 		if (origin && origin !== context.url.origin) {
-			return Response.json(errorBody(errors.forbidden('Requests from other sites are refused.')), { status: 403 });
+			return Response.json(errorBody(errors.forbidden('Requests from other sites are refused.')), {
+				status: 403,
+			});
 		}
 	}
 

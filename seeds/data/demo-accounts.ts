@@ -1,14 +1,53 @@
 /** The invented demo scenario's people. Demo passwords only: the seed refuses to run in production. */
-export const DEMO_FIRM = { name: 'Tallowmere Electric Co.', licenceNumber: 'EC-40917', phone: '555-0142', address: '18 Kettleby Row, Quillmere' };
-export const DEMO_JURISDICTION = { name: 'Quillmere County Building Division', codeEdition: '2023', address: '2 Civic Loop, Quillmere' };
+export const DEMO_FIRM = {
+	name: 'Tallowmere Electric Co.',
+	licenceNumber: 'EC-40917',
+	phone: '555-0142',
+	address: '18 Kettleby Row, Quillmere',
+};
+export const DEMO_JURISDICTION = {
+	name: 'Quillmere County Building Division',
+	codeEdition: '2023',
+	address: '2 Civic Loop, Quillmere',
+};
 
 export const DEMO_ACCOUNTS = {
-	owner: { email: 'marisol@tallowmere-electric.example', name: 'Marisol Quenby', password: 'demo-owner-2026', role: 'contractor (firm owner)' },
-	electrician: { email: 'teodor@tallowmere-electric.example', name: 'Teodor Vask', password: 'demo-electrician-2026', role: 'contractor (electrician)' },
-	inspector: { email: 'ines.halloway@quillmere-county.example', name: 'Ines Halloway', password: 'demo-inspector-2026', role: 'inspector' },
-	homeowner: { email: 'odalys.penhallow@mail.example', name: 'Odalys Penhallow', password: 'demo-homeowner-2026', role: 'homeowner' },
-	homeowner2: { email: 'rufus.calderwood@mail.example', name: 'Rufus Calderwood', password: 'demo-homeowner2-2026', role: 'homeowner' },
-	admin: { email: 'wren.ashdown@ampledger.example', name: 'Wren Ashdown', password: 'demo-admin-2026', role: 'administrator' },
+	owner: {
+		email: 'marisol@tallowmere-electric.example',
+		name: 'Marisol Quenby',
+		password: 'demo-owner-2026',
+		role: 'contractor (firm owner)',
+	},
+	electrician: {
+		email: 'teodor@tallowmere-electric.example',
+		name: 'Teodor Vask',
+		password: 'demo-electrician-2026',
+		role: 'contractor (electrician)',
+	},
+	inspector: {
+		email: 'ines.halloway@quillmere-county.example',
+		name: 'Ines Halloway',
+		password: 'demo-inspector-2026',
+		role: 'inspector',
+	},
+	homeowner: {
+		email: 'odalys.penhallow@mail.example',
+		name: 'Odalys Penhallow',
+		password: 'demo-homeowner-2026',
+		role: 'homeowner',
+	},
+	homeowner2: {
+		email: 'rufus.calderwood@mail.example',
+		name: 'Rufus Calderwood',
+		password: 'demo-homeowner2-2026',
+		role: 'homeowner',
+	},
+	admin: {
+		email: 'wren.ashdown@ampledger.example',
+		name: 'Wren Ashdown',
+		password: 'demo-admin-2026',
+		role: 'administrator',
+	},
 } as const;
 
 export const DEMO_PROPERTIES = {

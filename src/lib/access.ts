@@ -27,10 +27,18 @@ export function jobPermits(user: CurrentUser, job: JobRef, access: JobAccess): b
 
 /** Loads a job's ownership row and throws 404 when it is missing or the user may not reach it
  * (404 rather than 403, so that other firms' job ids reveal nothing), 403 when they may read but not write. */
-export async function assertJobAccess(knex: Knex, user: CurrentUser, jobId: string, access: JobAccess): Promise<JobRef> {
+export async function assertJobAccess(
+	knex: Knex,
+	user: CurrentUser,
+	jobId: string,
+	access: JobAccess,
+): Promise<JobRef> {
 	const uuid = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 	if (!uuid.test(jobId)) throw errors.notFound('job');
-	const job = await knex<JobRef>('jobs').where({ id: jobId }).whereNull('deleted_at').first('id', 'firm_id', 'property_id');
+	const job = await knex<JobRef>('jobs')
+		.where({ id: jobId })
+		.whereNull('deleted_at')
+		.first('id', 'firm_id', 'property_id');
 	if (!job || !jobPermits(user, job, 'read')) throw errors.notFound('job');
 	if (access === 'write' && !jobPermits(user, job, 'write')) {
 		throw errors.forbidden('You can read this job but not change it.');

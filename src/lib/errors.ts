@@ -30,7 +30,11 @@ export class AppError extends Error {
 	readonly fields?: Record<string, string[]>;
 	readonly details?: unknown;
 
-	constructor(code: ErrorCode, message: string, options: { fields?: Record<string, string[]>; details?: unknown } = {}) {
+	constructor(
+		code: ErrorCode,
+		message: string,
+		options: { fields?: Record<string, string[]>; details?: unknown } = {},
+	) {
 		super(message);
 		this.code = code;
 		this.status = STATUS[code];
@@ -52,7 +56,8 @@ export function fieldErrors(error: z.ZodError): Record<string, string[]> {
 export const errors = {
 	validation: (error: z.ZodError, message = 'Some fields need attention.') =>
 		new AppError('validation', message, { fields: fieldErrors(error) }),
-	invalid: (message: string, fields?: Record<string, string[]>) => new AppError('validation', message, { fields }),
+	invalid: (message: string, fields?: Record<string, string[]>) =>
+		new AppError('validation', message, { fields }),
 	unauthenticated: () => new AppError('unauthenticated', 'Please sign in to continue.'),
 	forbidden: (message = 'Your account does not have access to this.') => new AppError('forbidden', message),
 	notFound: (what = 'record') => new AppError('not_found', `No such ${what}, or it is not yours to see.`),
@@ -78,6 +83,9 @@ export function errorResponse(err: unknown): Response {
 		return Response.json(errorBody(err), { status: err.status });
 	}
 	console.error('[ampledger] unexpected error', err);
-	const internal = new AppError('internal', 'Something went wrong on our side. Nothing was saved; please try again.');
+	const internal = new AppError(
+		'internal',
+		'Something went wrong on our side. Nothing was saved; please try again.',
+	);
 	return Response.json(errorBody(internal), { status: 500 });
 }

@@ -92,5 +92,8 @@ export function canReadFirm(user: CurrentUser, firmId: string): boolean {
 }
 
 export function canManageFirm(user: CurrentUser, firmId: string): boolean {
-	return user.roles.includes('administrator') || user.firms.some((f) => f.id === firmId && f.memberRole === 'owner');
+	return (
+		user.roles.includes('administrator') ||
+		user.firms.some((f) => f.id === firmId && f.memberRole === 'owner')
+	);
 }

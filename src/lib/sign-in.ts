@@ -15,7 +15,12 @@ const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
  * Checks an e-mail and password. Repeated failures for one account or from one address are slowed
  * down and then refused for the rest of the window. Unknown accounts and wrong passwords look alike.
  */
-export async function checkCredentials(knex: Knex, email: string, password: string, ip: string): Promise<SignInOutcome> {
+export async function checkCredentials(
+	knex: Knex,
+	email: string,
+	password: string,
+	ip: string,
+): Promise<SignInOutcome> {
 	const since = knex.raw(`now() - interval '${THROTTLE.windowMinutes} minutes'`);
 	const [{ count: accountFailures }] = await knex('sign_in_attempts')
 		.where({ email, succeeded: false })

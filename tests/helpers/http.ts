@@ -16,7 +16,8 @@ export class HttpClient {
 			const i = pair!.indexOf('=');
 			const name = pair!.slice(0, i).trim();
 			const value = pair!.slice(i + 1).trim();
-			if (value === '' || /max-age=0/i.test(c) || /expires=Thu, 01 Jan 1970/i.test(c)) this.cookies.delete(name);
+			if (value === '' || /max-age=0/i.test(c) || /expires=Thu, 01 Jan 1970/i.test(c))
+				this.cookies.delete(name);
 			else this.cookies.set(name, value);
 		}
 	}
@@ -31,7 +32,10 @@ export class HttpClient {
 		return res;
 	}
 
-	async json<T = unknown>(path: string, init: RequestInit & { body?: unknown } = {}): Promise<{ status: number; body: T }> {
+	async json<T = unknown>(
+		path: string,
+		init: RequestInit & { body?: unknown } = {},
+	): Promise<{ status: number; body: T }> {
 		const { body, ...rest } = init;
 		const res = await this.fetch(path, {
 			...rest,

@@ -26,7 +26,12 @@ describe('signing in', () => {
 
 	test('an e-mail typed in other letter case and with spaces still signs in', async () => {
 		const client = new HttpClient();
-		expect(await client.signIn(`  ${DEMO_ACCOUNTS.electrician.email.toUpperCase()} `, DEMO_ACCOUNTS.electrician.password)).toBeNull();
+		expect(
+			await client.signIn(
+				`  ${DEMO_ACCOUNTS.electrician.email.toUpperCase()} `,
+				DEMO_ACCOUNTS.electrician.password,
+			),
+		).toBeNull();
 	});
 
 	test('a wrong password and an unknown account get the same answer', async () => {
@@ -49,14 +54,21 @@ describe('signing in', () => {
 
 	test('repeated failures for one account are refused for a while, even with the right password', async () => {
 		const email = `throttle-${Date.now()}@mail.example`;
-		await db('users').insert({ email, name: 'Throttle Probe', password_hash: (await import('bcryptjs')).default.hashSync('right-password-1', 4) });
+		await db('users').insert({
+			email,
+			name: 'Throttle Probe',
+			password_hash: (await import('bcryptjs')).default.hashSync('right-password-1', 4),
+		});
 		try {
 			const client = new HttpClient();
-			for (let i = 0; i < 5; i++) expect(await client.signIn(email, 'wrong-password')).toBe('wrong_credentials');
+			for (let i = 0; i < 5; i++)
+				expect(await client.signIn(email, 'wrong-password')).toBe('wrong_credentials');
 			expect(await client.signIn(email, 'right-password-1')).toBe('throttled');
-			expect(await db('sign_in_attempts').where({ email, succeeded: false }).count<{ count: string }[]>('* as count')).toEqual([
-				{ count: '5' },
-			]);
+			expect(
+				await db('sign_in_attempts')
+					.where({ email, succeeded: false })
+					.count<{ count: string }[]>('* as count'),
+			).toEqual([{ count: '5' }]);
 		} finally {
 			await db('sign_in_attempts').where({ email }).delete();
 			await db('users').where({ email }).delete();
@@ -75,14 +87,19 @@ describe('guards', () => {
 		},
 	);
 
-	test.each(['owner', 'inspector', 'homeowner'] as const)('the %s gets 403 from an administrators-only API', async (who) => {
-		const res = await (await signedInAs(who)).json<{ error: { code: string } }>('/api/admin/overview');
-		expect(res.status).toBe(403);
-		expect(res.body.error.code).toBe('forbidden');
-	});
+	test.each(['owner', 'inspector', 'homeowner'] as const)(
+		'the %s gets 403 from an administrators-only API',
+		async (who) => {
+			const res = await (await signedInAs(who)).json<{ error: { code: string } }>('/api/admin/overview');
+			expect(res.status).toBe(403);
+			expect(res.body.error.code).toBe('forbidden');
+		},
+	);
 
 	test('the administrator reads the administrators-only API', async () => {
-		const res = await (await signedInAs('admin')).json<{ firms: unknown[]; users: unknown[] }>('/api/admin/overview');
+		const res = await (
+			await signedInAs('admin')
+		).json<{ firms: unknown[]; users: unknown[] }>('/api/admin/overview');
 		expect(res.status).toBe(200);
 		expect(res.body.users.length).toBeGreaterThanOrEqual(Object.keys(DEMO_ACCOUNTS).length);
 	});
@@ -109,18 +126,29 @@ describe('firm data', () => {
 	test('a contractor reads their own firm but not another firm', async () => {
 		const owner = await signedInAs('owner');
 		const me = (await owner.json<Me>('/api/me')).body.user;
-		const ownFirm = await owner.json<{ firm: { name: string; members: unknown[] } }>(`/api/firms/${me.firms[0]!.id}`);
+		const ownFirm = await owner.json<{ firm: { name: string; members: unknown[] } }>(
+			`/api/firms/${me.firms[0]!.id}`,
+		);
 		expect(ownFirm.status).toBe(200);
 		expect(ownFirm.body.firm.members).toHaveLength(2);
 
 		const email = `rival-${Date.now()}@rival-wiring.example`;
 		const signUp = await new HttpClient().json<{ firmId: string }>('/api/sign-up', {
 			method: 'POST',
-			body: { firmName: 'Rival Wiring Ltd', licenceNumber: 'EC-2', name: 'Rhea Rival', email, password: 'a-long-password', confirmPassword: 'a-long-password' },
+			body: {
+				firmName: 'Rival Wiring Ltd',
+				licenceNumber: 'EC-2',
+				name: 'Rhea Rival',
+				email,
+				password: 'a-long-password',
+				confirmPassword: 'a-long-password',
+			},
 		});
 		expect(signUp.status).toBe(201);
 		try {
-			const rival = await owner.json<{ error: { code: string }; firm?: unknown }>(`/api/firms/${signUp.body.firmId}`);
+			const rival = await owner.json<{ error: { code: string }; firm?: unknown }>(
+				`/api/firms/${signUp.body.firmId}`,
+			);
 			expect(rival.status).toBe(404);
 			expect(rival.body.firm).toBeUndefined();
 		} finally {

@@ -35,7 +35,9 @@ describe('migrations', () => {
 	test('run up from nothing, all the way down to nothing, and up again to the same schema', async () => {
 		await db.migrate.latest(migrations);
 		const afterFirstUp = await tables();
-		expect(afterFirstUp).toEqual(expect.arrayContaining(['users', 'firms', 'firm_members', 'jurisdictions', 'properties']));
+		expect(afterFirstUp).toEqual(
+			expect.arrayContaining(['users', 'firms', 'firm_members', 'jurisdictions', 'properties']),
+		);
 
 		await db.migrate.rollback(migrations, true);
 		expect(await tables()).toEqual([]);
@@ -47,9 +49,9 @@ describe('migrations', () => {
 	test('the database refuses a second account with the same e-mail in other letter case', async () => {
 		await db.migrate.latest(migrations);
 		await db('users').insert({ email: 'case@example.test', name: 'Case One', password_hash: 'x' });
-		await expect(db('users').insert({ email: 'CASE@example.test', name: 'Case Two', password_hash: 'x' })).rejects.toThrow(
-			/users_email_lower_unique/,
-		);
+		await expect(
+			db('users').insert({ email: 'CASE@example.test', name: 'Case Two', password_hash: 'x' }),
+		).rejects.toThrow(/users_email_lower_unique/);
 		await db('users').where({ email: 'case@example.test' }).delete();
 	});
 });

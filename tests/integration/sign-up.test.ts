@@ -25,14 +25,21 @@ type ErrorBody = { error: { code: string; message: string; fields?: Record<strin
 describe('registering a firm', () => {
 	test('creates the firm with its owner, who can then sign in as a contractor', async () => {
 		const input = good();
-		const res = await new HttpClient().json<{ firmId: string; userId: string }>('/api/sign-up', { method: 'POST', body: input });
+		const res = await new HttpClient().json<{ firmId: string; userId: string }>('/api/sign-up', {
+			method: 'POST',
+			body: input,
+		});
 		expect(res.status).toBe(201);
 		try {
-			const member = await db('firm_members').where({ firm_id: res.body.firmId, user_id: res.body.userId }).first();
+			const member = await db('firm_members')
+				.where({ firm_id: res.body.firmId, user_id: res.body.userId })
+				.first();
 			expect(member.member_role).toBe('owner');
 			const client = new HttpClient();
 			expect(await client.signIn(input.email, input.password)).toBeNull();
-			expect((await client.json<{ user: { roles: string[] } }>('/api/me')).body.user.roles).toEqual(['contractor']);
+			expect((await client.json<{ user: { roles: string[] } }>('/api/me')).body.user.roles).toEqual([
+				'contractor',
+			]);
 		} finally {
 			await db('firms').where({ id: res.body.firmId }).delete();
 			await db('users').where({ id: res.body.userId }).delete();
@@ -40,20 +47,43 @@ describe('registering a firm', () => {
 	});
 
 	test.each([
-		['every field empty', { firmName: '', licenceNumber: '', name: '', email: '', password: '', confirmPassword: '' }, 'email', /enter your e-mail/i],
+		[
+			'every field empty',
+			{ firmName: '', licenceNumber: '', name: '', email: '', password: '', confirmPassword: '' },
+			'email',
+			/enter your e-mail/i,
+		],
 		['a malformed e-mail', { email: 'perrin.at.harrowgate' }, 'email', /does not look like an e-mail/i],
 		['an overlong e-mail', { email: `${'a'.repeat(250)}@x.example` }, 'email', /at most 254/i],
 		['an overlong firm name', { firmName: 'F'.repeat(161) }, 'firmName', /at most 160/i],
 		['an overlong name', { name: 'N'.repeat(121) }, 'name', /at most 120/i],
 		['a short password', { password: 'short', confirmPassword: 'short' }, 'password', /at least 10/i],
-		['an overlong password', { password: 'p'.repeat(201), confirmPassword: 'p'.repeat(201) }, 'password', /at most 200/i],
-		['passwords that differ', { confirmPassword: 'something-else-entirely' }, 'confirmPassword', /do not match/i],
+		[
+			'an overlong password',
+			{ password: 'p'.repeat(201), confirmPassword: 'p'.repeat(201) },
+			'password',
+			/at most 200/i,
+		],
+		[
+			'passwords that differ',
+			{ confirmPassword: 'something-else-entirely' },
+			'confirmPassword',
+			/do not match/i,
+		],
 		['SQL in the e-mail', { email: "x' OR '1'='1@x.example" }, 'email', /does not look like an e-mail/i],
-		['SQL in the licence number', { licenceNumber: "1; DROP TABLE users;--" }, 'licenceNumber', /letters, digits/i],
+		[
+			'SQL in the licence number',
+			{ licenceNumber: '1; DROP TABLE users;--' },
+			'licenceNumber',
+			/letters, digits/i,
+		],
 		['a field of the wrong type', { firmName: 42 }, 'firmName', /firm/i],
 	])('refuses %s with a message on the field and creates nothing', async (_case, change, field, message) => {
 		const before = await counts();
-		const res = await new HttpClient().json<ErrorBody>('/api/sign-up', { method: 'POST', body: { ...good(), ...change } });
+		const res = await new HttpClient().json<ErrorBody>('/api/sign-up', {
+			method: 'POST',
+			body: { ...good(), ...change },
+		});
 		expect(res.status).toBe(400);
 		expect(res.body.error.code).toBe('validation');
 		expect(res.body.error.fields?.[field]?.join(' ')).toMatch(message);
@@ -62,7 +92,11 @@ describe('registering a firm', () => {
 
 	test('a body that is not JSON gets a clear 400, not a 500', async () => {
 		const before = await counts();
-		const res = await new HttpClient().fetch('/api/sign-up', { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{not json' });
+		const res = await new HttpClient().fetch('/api/sign-up', {
+			method: 'POST',
+			headers: { 'content-type': 'application/json' },
+			body: '{not json',
+		});
 		expect(res.status).toBe(400);
 		expect(((await res.json()) as ErrorBody).error.message).toMatch(/must be JSON/);
 		expect(await counts()).toEqual(before);

@@ -15,7 +15,10 @@ export default function SignInForm({ next, initialError }: { next?: string; init
 		register,
 		handleSubmit,
 		formState: { errors, isSubmitting },
-	} = useForm<Input, unknown, Output>({ resolver: zodResolver(signInSchema), defaultValues: { email: '', password: '' } });
+	} = useForm<Input, unknown, Output>({
+		resolver: zodResolver(signInSchema),
+		defaultValues: { email: '', password: '' },
+	});
 
 	const onSubmit = handleSubmit(async (values) => {
 		setMessage(null);
@@ -32,14 +35,30 @@ export default function SignInForm({ next, initialError }: { next?: string; init
 	});
 
 	return (
-		<form method="post" onSubmit={onSubmit} noValidate className="space-y-4" aria-describedby={message ? 'sign-in-message' : undefined}>
+		<form
+			method="post"
+			onSubmit={onSubmit}
+			noValidate
+			className="space-y-4"
+			aria-describedby={message ? 'sign-in-message' : undefined}
+		>
 			{message && (
-				<div id="sign-in-message" role="alert" className="rounded-md border border-signal-violation/40 bg-red-50 p-3 text-sm text-signal-violation">
+				<div
+					id="sign-in-message"
+					role="alert"
+					className="rounded-md border border-signal-violation/40 bg-red-50 p-3 text-sm text-signal-violation"
+				>
 					{message}
 				</div>
 			)}
 			<FormField id="email" label="E-mail" error={errors.email?.message}>
-				<input {...register('email')} {...fieldAria('email', errors.email?.message)} type="email" autoComplete="username" className="field-input" />
+				<input
+					{...register('email')}
+					{...fieldAria('email', errors.email?.message)}
+					type="email"
+					autoComplete="username"
+					className="field-input"
+				/>
 			</FormField>
 			<FormField id="password" label="Password" error={errors.password?.message}>
 				<input

@@ -12,10 +12,22 @@ type Field = keyof Input;
 
 const FIELDS: { name: Field; label: string; type: string; autoComplete: string; hint?: string }[] = [
 	{ name: 'firmName', label: 'Firm name', type: 'text', autoComplete: 'organization' },
-	{ name: 'licenceNumber', label: 'Electrical contractor licence number', type: 'text', autoComplete: 'off', hint: 'Printed on the permit packet cover sheet.' },
+	{
+		name: 'licenceNumber',
+		label: 'Electrical contractor licence number',
+		type: 'text',
+		autoComplete: 'off',
+		hint: 'Printed on the permit packet cover sheet.',
+	},
 	{ name: 'name', label: 'Your name', type: 'text', autoComplete: 'name' },
 	{ name: 'email', label: 'E-mail', type: 'email', autoComplete: 'email' },
-	{ name: 'password', label: 'Password', type: 'password', autoComplete: 'new-password', hint: 'At least 10 characters.' },
+	{
+		name: 'password',
+		label: 'Password',
+		type: 'password',
+		autoComplete: 'new-password',
+		hint: 'At least 10 characters.',
+	},
 	{ name: 'confirmPassword', label: 'Password again', type: 'password', autoComplete: 'new-password' },
 ];
 
@@ -28,7 +40,14 @@ export default function SignUpForm() {
 		formState: { errors, isSubmitting },
 	} = useForm<Input, unknown, Output>({
 		resolver: zodResolver(signUpSchema),
-		defaultValues: { firmName: '', licenceNumber: '', name: '', email: '', password: '', confirmPassword: '' },
+		defaultValues: {
+			firmName: '',
+			licenceNumber: '',
+			name: '',
+			email: '',
+			password: '',
+			confirmPassword: '',
+		},
 	});
 
 	const onSubmit = handleSubmit(async (values) => {
@@ -40,7 +59,9 @@ export default function SignUpForm() {
 				body: JSON.stringify(values),
 			});
 			if (!res.ok) {
-				const body = (await res.json().catch(() => null)) as { error?: { message?: string; fields?: Record<string, string[]> } } | null;
+				const body = (await res.json().catch(() => null)) as {
+					error?: { message?: string; fields?: Record<string, string[]> };
+				} | null;
 				for (const [field, msgs] of Object.entries(body?.error?.fields ?? {})) {
 					if (FIELDS.some((f) => f.name === field)) setError(field as Field, { message: msgs[0] });
 				}
@@ -57,7 +78,10 @@ export default function SignUpForm() {
 	return (
 		<form method="post" onSubmit={onSubmit} noValidate className="space-y-4">
 			{message && (
-				<div role="alert" className="rounded-md border border-signal-violation/40 bg-red-50 p-3 text-sm text-signal-violation">
+				<div
+					role="alert"
+					className="rounded-md border border-signal-violation/40 bg-red-50 p-3 text-sm text-signal-violation"
+				>
 					{message}
 				</div>
 			)}

@@ -39,7 +39,15 @@ export async function loadCurrentUser(knex: Knex, userId: string): Promise<Curre
 	if (properties.length) roles.push('homeowner');
 	if (jurisdictions.length) roles.push('inspector');
 	if (admin) roles.push('administrator');
-	return { id: user.id, email: user.email, name: user.name, roles, firms, jurisdictions, propertyIds: properties };
+	return {
+		id: user.id,
+		email: user.email,
+		name: user.name,
+		roles,
+		firms,
+		jurisdictions,
+		propertyIds: properties,
+	};
 }
 
 /** Creates a contractor firm and its owner in one transaction; a taken e-mail is a 409 on the email field. */
@@ -68,7 +76,9 @@ export async function createFirmWithOwner(
 
 /** A firm with its members, for the contractor start page and the firm API. */
 export async function getFirm(knex: Knex, firmId: string) {
-	const firm = await knex('firms').where({ id: firmId }).first('id', 'name', 'licence_number as licenceNumber', 'phone', 'address');
+	const firm = await knex('firms')
+		.where({ id: firmId })
+		.first('id', 'name', 'licence_number as licenceNumber', 'phone', 'address');
 	if (!firm) return null;
 	const members = await knex('firm_members as m')
 		.join('users as u', 'u.id', 'm.user_id')
@@ -81,13 +91,19 @@ export async function getFirm(knex: Knex, firmId: string) {
 /** Jurisdictions with their inspectors' names, for an inspector's start page. */
 export async function getJurisdictions(knex: Knex, ids: string[]) {
 	if (!ids.length) return [];
-	const rows = await knex('jurisdictions').whereIn('id', ids).orderBy('name').select('id', 'name', 'code_edition as codeEdition', 'address');
+	const rows = await knex('jurisdictions')
+		.whereIn('id', ids)
+		.orderBy('name')
+		.select('id', 'name', 'code_edition as codeEdition', 'address');
 	const inspectors = await knex('jurisdiction_inspectors as ji')
 		.join('users as u', 'u.id', 'ji.user_id')
 		.whereIn('ji.jurisdiction_id', ids)
 		.orderBy('u.name')
 		.select('ji.jurisdiction_id as jurisdictionId', 'u.name');
-	return rows.map((j) => ({ ...j, inspectors: inspectors.filter((i) => i.jurisdictionId === j.id).map((i) => i.name as string) }));
+	return rows.map((j) => ({
+		...j,
+		inspectors: inspectors.filter((i) => i.jurisdictionId === j.id).map((i) => i.name as string),
+	}));
 }
 
 /** The properties a homeowner is linked to, with their jurisdiction. */
@@ -107,12 +123,22 @@ export async function getAdminOverview(knex: Knex) {
 			.leftJoin('firm_members as m', 'm.firm_id', 'f.id')
 			.groupBy('f.id')
 			.orderBy('f.name')
-			.select('f.id', 'f.name', 'f.licence_number as licenceNumber', knex.raw('count(m.user_id)::int as "memberCount"')),
+			.select(
+				'f.id',
+				'f.name',
+				'f.licence_number as licenceNumber',
+				knex.raw('count(m.user_id)::int as "memberCount"'),
+			),
 		knex('jurisdictions as j')
 			.leftJoin('jurisdiction_inspectors as ji', 'ji.jurisdiction_id', 'j.id')
 			.groupBy('j.id')
 			.orderBy('j.name')
-			.select('j.id', 'j.name', 'j.code_edition as codeEdition', knex.raw('count(ji.user_id)::int as "inspectorCount"')),
+			.select(
+				'j.id',
+				'j.name',
+				'j.code_edition as codeEdition',
+				knex.raw('count(ji.user_id)::int as "inspectorCount"'),
+			),
 		knex('users').orderBy('name').select('id', 'name', 'email', 'created_at as createdAt'),
 	]);
 	return { firms, jurisdictions, users };
