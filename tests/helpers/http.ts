@@ -34,7 +34,7 @@ export class HttpClient {
 
 	async json<T = unknown>(
 		path: string,
-		init: RequestInit & { body?: unknown } = {},
+		init: Omit<RequestInit, 'body'> & { body?: unknown } = {},
 	): Promise<{ status: number; body: T }> {
 		const { body, ...rest } = init;
 		const res = await this.fetch(path, {

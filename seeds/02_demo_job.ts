@@ -1,0 +1,28 @@
+import type { Knex } from 'knex';
+import { importJob } from '../src/lib/repositories/job-import.ts';
+import { DEMO_ACCOUNTS, DEMO_JURISDICTION, DEMO_FIRM } from './data/demo-accounts.ts';
+import { DEMO_JOB_DOCUMENT, DEMO_JOB_EXTRAS } from './data/demo-job.ts';
+
+/** The demo job at the demo homeowner's house, for the demo firm, in the demo jurisdiction. */
+export async function seed(knex: Knex): Promise<void> {
+	if (process.env.NODE_ENV === 'production' && process.env.AMPLEDGER_ALLOW_DEMO !== '1') {
+		throw new Error(
+			'The demo seed is not for production databases (set AMPLEDGER_ALLOW_DEMO=1 to override).',
+		);
+	}
+	await knex.raw(
+		'TRUNCATE audit_log, load_rooms, loads, circuit_rooms, circuits, panels, rooms, jobs CASCADE',
+	);
+	const owner = await knex('users').where({ email: DEMO_ACCOUNTS.owner.email }).first('id');
+	const firm = await knex('firms').where({ name: DEMO_FIRM.name }).first('id');
+	const jurisdiction = await knex('jurisdictions').where({ name: DEMO_JURISDICTION.name }).first('id');
+	const { job } = await importJob(knex, { id: owner.id }, firm.id, DEMO_JOB_DOCUMENT);
+	await knex('jobs').where({ id: job.id }).update({
+		jurisdiction_id: jurisdiction.id,
+		homeowner_name: DEMO_JOB_EXTRAS.homeownerName,
+		homeowner_email: DEMO_JOB_EXTRAS.homeownerEmail,
+		scope_of_work: DEMO_JOB_EXTRAS.scopeOfWork,
+		permit_number: DEMO_JOB_EXTRAS.permitNumber,
+		status: DEMO_JOB_EXTRAS.status,
+	});
+}

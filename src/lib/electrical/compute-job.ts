@@ -1,0 +1,1038 @@
+/** computeJob: every check of a job document in one pass over its records. */
+import { checkCircuit, circuitName, emptyStats } from './circuit-checks';
+import type { CircuitLoadStats, CircuitResult, FeederLoad } from './circuit-checks';
+import {
+	addLoad,
+	ampsFigures,
+	cloneBucket,
+	emptyBucket,
+	existingAddedMethod,
+	measuredDemandMethod,
+	mergeBucket,
+	optionalMethod,
+	standardMethod,
+} from './dwelling';
+import type { GeneralLoadOptions, LoadBucket, Supply } from './dwelling';
+import { fig, finding, num, q, roundTo } from './format';
+import { isContinuous, isMotor, unitVA } from './load-values';
+import { circuitVoltage, legOf, legsOf, positionsTaken, rowOf, sideOf } from './positions';
+import { isReceptacleLoad, protectionFindings, requiredCircuitFindings } from './protection';
+import type { RequiredCircuitFacts } from './protection';
+import type { Circuit, JobDocument, Load, Panel, Room, VoltageSystem } from './schema';
+import { COMMON_PRACTICE, section } from './sections';
+import { MIN_SERVICE_ONE_FAMILY_A, nextStandardRatingA } from './tables';
+import type { Edition, Figure, Finding, Leg, Line, Severity } from './types';
+
+export interface PositionSlot {
+	position: number;
+	row: number;
+	side: 'left' | 'right';
+	leg: Leg;
+	/** The circuit in the position, or null when free. */
+	circuitId: string | null;
+}
+
+export interface LegLoad {
+	leg: Leg;
+	amps: Figure;
+	va: Figure;
+}
+
+export interface PanelResult {
+	panelId: string;
+	name: string;
+	kind: Panel['kind'];
+	voltageSystem: VoltageSystem;
+	spaces: number;
+	positions: PositionSlot[];
+	used: number;
+	free: number;
+	freePositions: number[];
+	legs: LegLoad[];
+	imbalance: Figure;
+	connectedVA: Figure;
+	connectedA: Figure;
+	/** Standard-method load of everything this panel supplies. */
+	calculation: Line[];
+	calculatedVA: Figure;
+	calculatedA: Figure;
+	busRatingA: number;
+	mainBreakerA: number | null;
+	/** For a subpanel: its feeder circuit; null for a main panel. */
+	feederCircuitId: string | null;
+	findings: Finding[];
+}
+
+export type MethodId = 'standard' | 'optional' | 'existing-added' | 'measured-demand';
+
+export interface MethodResult {
+	method: MethodId;
+	title: string;
+	rule: string;
+	applicable: boolean;
+	/** Why the method applies or does not. */
+	reason: string;
+	lines: Line[];
+	totalVA: Figure | null;
+	amps: Figure | null;
+	ampsRounded: Figure | null;
+	minimumServiceA: Figure | null;
+	headroomA: Figure | null;
+	headroomVA: Figure | null;
+	withinService: boolean | null;
+}
+
+export interface ServiceResult {
+	ratingA: number;
+	voltageSystem: VoltageSystem;
+	floorArea: Figure;
+	methods: MethodResult[];
+	neutral: { lines: Line[]; totalVA: Figure; amps: Figure; ampsRounded: Figure };
+	/** The applicable method giving the lowest load, or null. */
+	lowestMethod: MethodId | null;
+	minimumServiceA: Figure;
+	findings: Finding[];
+}
+
+export interface JobResult {
+	job: {
+		id: string | null;
+		name: string;
+		address: string;
+		codeEdition: Edition;
+		terminalTemperatureC: number;
+	};
+	circuits: CircuitResult[];
+	panels: PanelResult[];
+	/** Job-level protection and required-circuit findings (per-circuit GFCI/AFCI findings sit on the circuits). */
+	protection: Finding[];
+	service: ServiceResult;
+	/** Every finding, flattened. */
+	findings: Finding[];
+	summary: Record<Severity, number>;
+}
+
+const EXCLUDED_FROM_AREA = new Set(['garage', 'outdoor', 'attic', 'crawl-space']);
+
+function roomCounts(r: Room): boolean {
+	return r.inFloorArea ?? !EXCLUDED_FROM_AREA.has(r.type);
+}
+
+function supplyOf(system: VoltageSystem): Supply {
+	return system === '120/240-1ph-3w'
+		? { divisor: 240, label: '240 V' }
+		: { divisor: 208 * Math.sqrt(3), label: '(208 V × √3 = 360.27 V)' };
+}
+
+interface PanelWork {
+	panel: Panel;
+	circuits: Circuit[];
+	own: { existing: LoadBucket; added: LoadBucket };
+	subtree: LoadBucket | null;
+	connectedVA: number;
+	legAmps: number[];
+	calculatedVA: number;
+	result: PanelResult | null;
+}
+
+/** Runs every check on a validated job document. Pure: the same document always gives the same result. */
+export function computeJob(doc: JobDocument): JobResult {
+	const ed = doc.codeEdition;
+	const ctx = { edition: ed, terminalC: doc.terminalTemperatureC };
+	const jobId = doc.id ?? doc.name;
+	const roomsById = new Map<string, Room>();
+	for (const r of doc.rooms) roomsById.set(r.id, r);
+
+	const work = new Map<string, PanelWork>();
+	for (const p of doc.panels) {
+		work.set(p.id, {
+			panel: p,
+			circuits: [],
+			own: { existing: emptyBucket(), added: emptyBucket() },
+			subtree: null,
+			connectedVA: 0,
+			legAmps: legsOf(p.voltageSystem).map(() => 0),
+			calculatedVA: 0,
+			result: null,
+		});
+	}
+	const panelFedBy = new Map<string, string>(); // circuit id → sub panel id
+	for (const p of doc.panels) if (p.fedFromCircuitId !== null) panelFedBy.set(p.fedFromCircuitId, p.id);
+
+	const circuitsById = new Map<string, Circuit>();
+	let existingDwelling = false;
+	for (const c of doc.circuits) {
+		circuitsById.set(c.id, c);
+		if (c.status === 'removed') continue;
+		if (c.status === 'existing' || c.status === 'modified') existingDwelling = true;
+		work.get(c.panelId)?.circuits.push(c);
+	}
+	const loadsByCircuit = new Map<string, Load[]>();
+	for (const l of doc.loads) {
+		const list = loadsByCircuit.get(l.circuitId);
+		if (list) list.push(l);
+		else loadsByCircuit.set(l.circuitId, [l]);
+	}
+
+	// Panels children first, so a feeder circuit sees its subpanel's totals.
+	const children = new Map<string, string[]>();
+	const roots: string[] = [];
+	for (const p of doc.panels) {
+		const up = p.fedFromCircuitId !== null ? circuitsById.get(p.fedFromCircuitId)?.panelId : undefined;
+		if (up === undefined) roots.push(p.id);
+		else {
+			const list = children.get(up);
+			if (list) list.push(p.id);
+			else children.set(up, [p.id]);
+		}
+	}
+	const preOrder: string[] = [];
+	const stack = [...roots].reverse();
+	while (stack.length > 0) {
+		const id = stack.pop() as string;
+		preOrder.push(id);
+		const kids = children.get(id);
+		if (kids) for (let i = kids.length - 1; i >= 0; i--) stack.push(kids[i] as string);
+	}
+	const postOrder = [...preOrder].reverse();
+
+	const facts: RequiredCircuitFacts = { smallAppliance: [], laundry: [], receptacle20ARooms: new Set() };
+	const circuitResults = new Map<string, CircuitResult>();
+	const jobArea = floorArea(doc);
+	const soleRoot = roots.length === 1 ? roots[0] : undefined;
+	const noLoads: Load[] = [];
+
+	for (const panelId of postOrder) {
+		const w = work.get(panelId);
+		if (!w) continue;
+		const p = w.panel;
+		for (const c of w.circuits) {
+			const loads = loadsByCircuit.get(c.id) ?? noLoads;
+			const v = circuitVoltage(c.poles, p.voltageSystem);
+			const stats: CircuitLoadStats = emptyStats();
+			let firstSA = true;
+			let firstLaundry = true;
+			let hasReceptacle = false;
+			for (const l of loads) {
+				const each = unitVA(l);
+				const total = each * l.quantity;
+				stats.count++;
+				stats.connectedVA += total;
+				if (stats.terms.length < 6) stats.terms.push(total);
+				if (isContinuous(l)) stats.continuousVA += total;
+				if (isMotor(l) && each > stats.largestMotorVA) stats.largestMotorVA = each;
+				const general =
+					l.kind === 'lighting' ||
+					l.kind === 'receptacles' ||
+					l.kind === 'small-appliance' ||
+					l.kind === 'laundry';
+				if (general) stats.hasGeneralOutlets = true;
+				if (isReceptacleLoad(l)) {
+					stats.hasReceptacles = true;
+					hasReceptacle = true;
+				}
+				if (l.cordAndPlug && each > stats.largestCordVA) stats.largestCordVA = each;
+				if (!general && !l.cordAndPlug) stats.fastenedVA += total;
+				if (!(isMotor(l) || l.kind === 'hvac-cool' || l.kind === 'heat-pump')) stats.motorOrAcOnly = false;
+				if (l.voltage !== v && l.voltage !== 120) stats.otherVoltages.add(l.voltage);
+				if (l.kind === 'range') for (let i = 0; i < l.quantity; i++) stats.cookingKW.push(each / 1000);
+				else stats.onlyCooking = false;
+				const added = (l.status ?? (c.status === 'new' ? 'new' : 'existing')) === 'new';
+				const bucket = added ? w.own.added : w.own.existing;
+				const first = l.kind === 'small-appliance' ? firstSA : l.kind === 'laundry' ? firstLaundry : false;
+				addLoad(bucket, l, ed, first);
+				if (l.kind === 'small-appliance') firstSA = false;
+				if (l.kind === 'laundry') firstLaundry = false;
+			}
+			if (!firstSA) facts.smallAppliance.push({ id: c.id, name: circuitName(c), ratingA: c.ratingA });
+			if (!firstLaundry) facts.laundry.push({ id: c.id, name: circuitName(c), ratingA: c.ratingA });
+			if (hasReceptacle && c.poles === 1 && c.ratingA === 20) {
+				for (const r of c.roomIds) facts.receptacle20ARooms.add(r);
+				for (const l of loads)
+					if (isReceptacleLoad(l)) for (const r of l.roomIds) facts.receptacle20ARooms.add(r);
+			}
+
+			const subId = panelFedBy.get(c.id);
+			const sub = subId !== undefined ? work.get(subId) : undefined;
+			const feeder: FeederLoad | null = sub
+				? {
+						panelId: sub.panel.id,
+						panelName: sub.panel.name,
+						connectedVA: sub.connectedVA,
+						calculatedVA: sub.calculatedVA,
+						legAmps: sub.legAmps,
+					}
+				: null;
+			const positions = positionsTaken(c.position, c.poles);
+			const legs = positions.map((pos) => legOf(pos, p.voltageSystem));
+			const r = checkCircuit(c, p, stats, ctx, feeder, legs, positions);
+			for (const f of protectionFindings(c, loads, roomsById, ed, circuitName(c))) r.findings.push(f);
+			circuitResults.set(c.id, r);
+			w.connectedVA += r.connectedVA.value;
+			const legIndex = legsOf(p.voltageSystem);
+			for (let i = 0; i < legs.length; i++) {
+				const li = legIndex.indexOf(legs[i] as Leg);
+				if (li >= 0) w.legAmps[li] = (w.legAmps[li] ?? 0) + (r.legAmps[i] ?? 0);
+			}
+		}
+		// Everything this panel supplies, for its calculated load.
+		const subtree = mergeBucket(cloneBucket(w.own.existing), w.own.added);
+		for (const kid of children.get(panelId) ?? []) {
+			const k = work.get(kid);
+			if (k?.subtree) mergeBucket(subtree, k.subtree);
+		}
+		w.subtree = subtree;
+		const whole = panelId === soleRoot;
+		let area = 0;
+		if (!whole)
+			for (const rid of subtree.rooms) {
+				const room = roomsById.get(rid);
+				if (room && roomCounts(room)) area += room.areaFt2;
+			}
+		const opts: GeneralLoadOptions = whole
+			? { edition: ed, areaFt2: jobArea.value, areaSource: jobArea.source, minimumCircuits: true }
+			: { edition: ed, areaFt2: area, areaSource: 'rooms this panel supplies', minimumCircuits: false };
+		const calc = standardMethod(subtree, opts, supplyOf(p.voltageSystem));
+		w.calculatedVA = calc.total.value;
+		// The sole main panel carries the whole dwelling: it is judged by the service's lowest method, below.
+		if (!whole) w.result = panelResult(w, calc.lines, ed, circuitsById, circuitResults);
+	}
+
+	// Voltage drop through feeders, service side first.
+	const upstreamPct = new Map<string, number>();
+	for (const panelId of preOrder) {
+		const p = work.get(panelId)?.panel;
+		if (!p) continue;
+		const feederId = p.fedFromCircuitId;
+		const feeder = feederId !== null ? circuitResults.get(feederId) : undefined;
+		const up = feeder ? (upstreamPct.get(feeder.panelId) ?? 0) + feeder.voltageDrop.percent.value : 0;
+		upstreamPct.set(panelId, up);
+	}
+	const circuits: CircuitResult[] = [];
+	for (const c of doc.circuits) {
+		const r = circuitResults.get(c.id);
+		if (!r) continue;
+		const up = upstreamPct.get(r.panelId) ?? 0;
+		if (up > 0 && r.feedsPanelId === null) {
+			const total = up + r.voltageDrop.percent.value;
+			r.voltageDropTotal = fig(
+				roundTo(total, 3),
+				'%',
+				r.voltageDrop.percent.rule,
+				() => `feeders ${q(up, '%')} + branch ${q(r.voltageDrop.percent.value, '%')} = ${q(total, '%')}`,
+			);
+			if (total > 5) {
+				r.findings.push(
+					finding(
+						'note',
+						'voltage-drop-total',
+						() =>
+							`${circuitName(c)}: feeder and branch together drop ${q(total, '%')}, over the 5 % recommended.`,
+						r.voltageDrop.percent.rule,
+						{ kind: 'circuit', id: c.id },
+					),
+				);
+			}
+		}
+		circuits.push(r);
+	}
+
+	// Service.
+	const all = emptyBucket();
+	const added = emptyBucket();
+	for (const w of work.values()) {
+		mergeBucket(all, w.own.existing);
+		mergeBucket(all, w.own.added);
+		mergeBucket(added, w.own.added);
+	}
+	const service = serviceResult(doc, all, added, existingDwelling, jobArea, roomsById, jobId);
+	const rootWork = soleRoot !== undefined ? work.get(soleRoot) : undefined;
+	if (rootWork) {
+		const lowest = service.methods.find((m) => m.method === service.lowestMethod);
+		if (lowest?.totalVA) rootWork.calculatedVA = lowest.totalVA.value;
+		rootWork.result = panelResult(rootWork, lowest?.lines ?? [], ed, circuitsById, circuitResults);
+	}
+	for (const root of roots) {
+		const w = work.get(root);
+		const main = w?.panel.mainBreakerA;
+		if (w?.result && main !== null && main !== undefined && main > doc.service.ratingA) {
+			w.result.findings.push(
+				finding(
+					'warning',
+					'main-exceeds-service',
+					() =>
+						`Panel ${w.panel.name}: the ${main} A main breaker is larger than the ${doc.service.ratingA} A service rating.`,
+					COMMON_PRACTICE,
+					{ kind: 'panel', id: w.panel.id },
+				),
+			);
+		}
+	}
+
+	const protection = requiredCircuitFindings(facts, doc.rooms, ed, existingDwelling, jobId);
+	const served = new Set<string>();
+	for (const c of doc.circuits) if (c.status !== 'removed') for (const r of c.roomIds) served.add(r);
+	for (const l of doc.loads) for (const r of l.roomIds) served.add(r);
+	for (const room of doc.rooms) {
+		if (!served.has(room.id)) {
+			protection.push(
+				finding(
+					'note',
+					'room-unserved',
+					() => `${room.name} has no circuit or load recorded.`,
+					COMMON_PRACTICE,
+					{
+						kind: 'room',
+						id: room.id,
+					},
+				),
+			);
+		}
+	}
+
+	const panels: PanelResult[] = [];
+	for (const p of doc.panels) {
+		const r = work.get(p.id)?.result;
+		if (r) panels.push(r);
+	}
+	const findings: Finding[] = [];
+	for (const r of circuits) for (const f of r.findings) findings.push(f);
+	for (const p of panels) for (const f of p.findings) findings.push(f);
+	for (const f of protection) findings.push(f);
+	for (const f of service.findings) findings.push(f);
+	const summary: Record<Severity, number> = { ok: 0, note: 0, warning: 0, violation: 0 };
+	for (const f of findings) summary[f.severity]++;
+
+	return {
+		job: {
+			id: doc.id,
+			name: doc.name,
+			address: doc.address,
+			codeEdition: ed,
+			terminalTemperatureC: doc.terminalTemperatureC,
+		},
+		circuits,
+		panels,
+		protection,
+		service,
+		findings,
+		summary,
+	};
+}
+
+function floorArea(doc: JobDocument): { value: number; source: string; figure: Figure } {
+	const rule = section('generalLighting', doc.codeEdition);
+	const given = doc.floorAreaFt2;
+	if (given !== null) {
+		return {
+			value: given,
+			source: 'floor area given',
+			figure: fig(given, 'ft2', rule, `floor area given for the job: ${num(given)} ft²`),
+		};
+	}
+	let sum = 0;
+	let counted = 0;
+	for (const r of doc.rooms) {
+		if (roomCounts(r)) {
+			sum += r.areaFt2;
+			counted++;
+		}
+	}
+	return {
+		value: sum,
+		source: 'sum of rooms',
+		figure: fig(
+			sum,
+			'ft2',
+			rule,
+			() => `sum of ${counted} rooms (garage, outdoor, attic and crawl space not counted) = ${num(sum)} ft²`,
+		),
+	};
+}
+
+function panelResult(
+	w: PanelWork,
+	calculation: Line[],
+	ed: Edition,
+	circuitsById: ReadonlyMap<string, Circuit>,
+	circuitResults: ReadonlyMap<string, CircuitResult>,
+): PanelResult {
+	const p = w.panel;
+	const target = { kind: 'panel', id: p.id } as const;
+	const findings: Finding[] = [];
+	const slots: PositionSlot[] = [];
+	for (let pos = 1; pos <= p.spaces; pos++) {
+		slots.push({
+			position: pos,
+			row: rowOf(pos),
+			side: sideOf(pos),
+			leg: legOf(pos, p.voltageSystem),
+			circuitId: null,
+		});
+	}
+	for (const c of w.circuits) {
+		const name = circuitName(c);
+		const ct = { kind: 'circuit', id: c.id } as const;
+		const taken = positionsTaken(c.position, c.poles);
+		const beyond = taken.filter((t) => t > p.spaces);
+		if (beyond.length > 0) {
+			findings.push(
+				finding(
+					'violation',
+					'position-beyond-spaces',
+					() =>
+						`${name} takes position ${beyond.join(', ')}, beyond the ${p.spaces} spaces of panel ${p.name}.`,
+					COMMON_PRACTICE,
+					ct,
+				),
+			);
+		}
+		for (const t of taken) {
+			const slot = slots[t - 1];
+			if (!slot) continue;
+			if (slot.circuitId !== null) {
+				const other = circuitsById.get(slot.circuitId);
+				findings.push(
+					finding(
+						'violation',
+						'position-conflict',
+						() =>
+							`${name} and ${other ? circuitName(other) : slot.circuitId} both take position ${t} of panel ${p.name}.`,
+						COMMON_PRACTICE,
+						ct,
+					),
+				);
+			} else slot.circuitId = c.id;
+		}
+		if (c.multiwireWith !== null && c.id < c.multiwireWith) {
+			checkMultiwire(c, circuitsById.get(c.multiwireWith), p, ed, findings);
+		} else if (c.multiwireWith !== null) {
+			const other = circuitsById.get(c.multiwireWith);
+			if (other && other.multiwireWith !== c.id) checkMultiwire(c, other, p, ed, findings);
+		}
+	}
+	const freePositions: number[] = [];
+	for (const s of slots) if (s.circuitId === null) freePositions.push(s.position);
+	const used = p.spaces - freePositions.length;
+	if (freePositions.length === 0) {
+		findings.push(
+			finding('note', 'panel-full', () => `Panel ${p.name} has no free positions.`, COMMON_PRACTICE, target),
+		);
+	}
+
+	const legs = legsOf(p.voltageSystem);
+	const legLoads: LegLoad[] = legs.map((leg, i) => {
+		const a = w.legAmps[i] ?? 0;
+		return {
+			leg,
+			amps: fig(roundTo(a, 3), 'A', 'sum of the breakers on the leg', () => `leg ${leg}: ${q(a, 'A')}`),
+			va: fig(
+				roundTo(a * 120, 3),
+				'VA',
+				'line-to-neutral VA',
+				() => `${q(a, 'A')} × 120 V = ${q(a * 120, 'VA')}`,
+			),
+		};
+	});
+	let max = 0;
+	let min = Number.POSITIVE_INFINITY;
+	for (const a of w.legAmps) {
+		if (a > max) max = a;
+		if (a < min) min = a;
+	}
+	if (!Number.isFinite(min)) min = 0;
+	const imb = max > 0 ? ((max - min) / max) * 100 : 0;
+	const imbalance = fig(roundTo(imb, 2), '%', COMMON_PRACTICE, () =>
+		max > 0
+			? `(${q(max, 'A')} − ${q(min, 'A')}) ÷ ${q(max, 'A')} × 100 = ${q(imb, '%')}`
+			: 'no load on any leg',
+	);
+	if (imb > 20 && max - min > 10) {
+		findings.push(
+			finding(
+				'note',
+				'leg-imbalance',
+				() =>
+					`Panel ${p.name}: legs differ by ${q(imb, '%')} (${q(max - min, 'A')}); moving circuits would even them out.`,
+				COMMON_PRACTICE,
+				target,
+			),
+		);
+	}
+
+	const supply = supplyOf(p.voltageSystem);
+	const connectedVA = fig(
+		roundTo(w.connectedVA, 3),
+		'VA',
+		'sum of the circuits',
+		() => `${w.circuits.length} circuits: ${q(w.connectedVA, 'VA')}`,
+	);
+	const connectedA = fig(
+		roundTo(w.connectedVA / supply.divisor, 3),
+		'A',
+		'I = S ÷ V',
+		() => `${q(w.connectedVA, 'VA')} ÷ ${supply.label} = ${q(w.connectedVA / supply.divisor, 'A')}`,
+	);
+	const total = calculation[calculation.length - 1];
+	const calculatedVA = fig(
+		w.calculatedVA,
+		'VA',
+		total?.rule ?? `NEC ${ed} Article 220 Part III`,
+		total?.working ?? '',
+	);
+	const calcA = w.calculatedVA / supply.divisor;
+	const calculatedA = fig(
+		roundTo(calcA, 3),
+		'A',
+		'I = S ÷ V',
+		() => `${q(w.calculatedVA, 'VA')} ÷ ${supply.label} = ${q(calcA, 'A')}`,
+	);
+
+	const ratingRule = section('panelRating', ed);
+	findings.push(
+		calcA > p.busRatingA
+			? finding(
+					'violation',
+					'panel-bus-overload',
+					() => `Panel ${p.name}: calculated load ${q(calcA, 'A')} is more than the ${p.busRatingA} A bus.`,
+					ratingRule,
+					target,
+				)
+			: finding(
+					'ok',
+					'panel-bus-overload',
+					() => `Panel ${p.name}: calculated load ${q(calcA, 'A')} is within the ${p.busRatingA} A bus.`,
+					ratingRule,
+					target,
+				),
+	);
+	if (p.mainBreakerA !== null) {
+		if (calcA > p.mainBreakerA) {
+			findings.push(
+				finding(
+					'violation',
+					'panel-main-overload',
+					() =>
+						`Panel ${p.name}: calculated load ${q(calcA, 'A')} is more than the ${p.mainBreakerA} A main breaker.`,
+					ratingRule,
+					target,
+				),
+			);
+		}
+		if (p.mainBreakerA > p.busRatingA) {
+			findings.push(
+				finding(
+					'violation',
+					'main-exceeds-bus',
+					() =>
+						`Panel ${p.name}: the ${p.mainBreakerA} A main breaker is larger than the ${p.busRatingA} A bus it protects.`,
+					section('panelProtection', ed),
+					target,
+				),
+			);
+		}
+	}
+	let feederCircuitId: string | null = null;
+	if (p.fedFromCircuitId !== null) {
+		feederCircuitId = p.fedFromCircuitId;
+		const feeder = circuitsById.get(p.fedFromCircuitId);
+		const parentSystem = feeder ? circuitResults.get(feeder.id) : undefined;
+		if (feeder && p.mainBreakerA === null && feeder.ratingA > p.busRatingA) {
+			findings.push(
+				finding(
+					'violation',
+					'feeder-exceeds-bus',
+					() =>
+						`Panel ${p.name} is main-lug: its ${feeder.ratingA} A feeder breaker is larger than the ${p.busRatingA} A bus.`,
+					section('panelProtection', ed),
+					target,
+				),
+			);
+		}
+		if (parentSystem && parentSystem.voltage.value !== (p.voltageSystem === '120/240-1ph-3w' ? 240 : 208)) {
+			findings.push(
+				finding(
+					'warning',
+					'voltage-system-mismatch',
+					() =>
+						`Panel ${p.name} is ${p.voltageSystem} but its feeder supplies ${parentSystem.voltage.value} V.`,
+					COMMON_PRACTICE,
+					target,
+				),
+			);
+		}
+	} else if (p.mainBreakerA === null) {
+		findings.push(
+			finding(
+				'note',
+				'main-lug',
+				() => `Panel ${p.name} is main-lug; the service disconnect must be ahead of it.`,
+				section('panelProtection', ed),
+				target,
+			),
+		);
+	}
+
+	return {
+		panelId: p.id,
+		name: p.name,
+		kind: p.kind,
+		voltageSystem: p.voltageSystem,
+		spaces: p.spaces,
+		positions: slots,
+		used,
+		free: freePositions.length,
+		freePositions,
+		legs: legLoads,
+		imbalance,
+		connectedVA,
+		connectedA,
+		calculation,
+		calculatedVA,
+		calculatedA,
+		busRatingA: p.busRatingA,
+		mainBreakerA: p.mainBreakerA,
+		feederCircuitId,
+		findings,
+	};
+}
+
+function checkMultiwire(
+	c: Circuit,
+	other: Circuit | undefined,
+	p: Panel,
+	ed: Edition,
+	findings: Finding[],
+): void {
+	if (!other) return;
+	const target = { kind: 'circuit', id: c.id } as const;
+	if (other.panelId !== c.panelId) {
+		findings.push(
+			finding(
+				'violation',
+				'multiwire-panels',
+				() => `${circuitName(c)} shares a neutral with ${circuitName(other)} in another panel.`,
+				section('multiwire', ed),
+				target,
+			),
+		);
+		return;
+	}
+	const legA = legOf(c.position, p.voltageSystem);
+	const legB = legOf(other.position, p.voltageSystem);
+	if (legA === legB) {
+		findings.push(
+			finding(
+				'violation',
+				'multiwire-same-leg',
+				() =>
+					`${circuitName(c)} and ${circuitName(other)} share a neutral but both sit on leg ${legA}; the neutral would carry the sum of both currents.`,
+				section('multiwireLegs', ed),
+				target,
+			),
+		);
+	} else {
+		findings.push(
+			finding(
+				'ok',
+				'multiwire-same-leg',
+				() =>
+					`${circuitName(c)} and ${circuitName(other)} share a neutral on opposite legs (${legA}, ${legB}).`,
+				section('multiwireLegs', ed),
+				target,
+			),
+		);
+	}
+	findings.push(
+		finding(
+			'note',
+			'multiwire-disconnect',
+			() =>
+				`${circuitName(c)} and ${circuitName(other)} must open together: a 2-pole breaker or identified handle ties.`,
+			section('multiwire', ed),
+			target,
+		),
+	);
+}
+
+function methodResult(
+	method: MethodId,
+	title: string,
+	rule: string,
+	applicable: boolean,
+	reason: string,
+	lines: Line[],
+	total: Line | null,
+	ratingA: number,
+	supply: Supply,
+	ed: Edition,
+): MethodResult {
+	if (!applicable || total === null) {
+		return {
+			method,
+			title,
+			rule,
+			applicable: false,
+			reason,
+			lines: [],
+			totalVA: null,
+			amps: null,
+			ampsRounded: null,
+			minimumServiceA: null,
+			headroomA: null,
+			headroomVA: null,
+			withinService: null,
+		};
+	}
+	const { amps, ampsRounded } = ampsFigures(total.value, supply, ed);
+	const next = nextStandardRatingA(ampsRounded.value);
+	const min = Math.max(MIN_SERVICE_ONE_FAMILY_A, next);
+	const minimumServiceA = fig(
+		min,
+		'A',
+		`NEC ${ed} ${['230.79(C)', '240.6(A)'].join(', ')}`,
+		() =>
+			`${q(ampsRounded.value, 'A', 0)} → next standard rating ${q(next, 'A', 0)}; one-family dwelling at least 100 A → ${q(min, 'A', 0)}`,
+	);
+	const head = ratingA - ampsRounded.value;
+	const headVA = ratingA * supply.divisor - total.value;
+	return {
+		method,
+		title,
+		rule,
+		applicable: true,
+		reason,
+		lines,
+		totalVA: { value: total.value, unit: 'VA', rule: total.rule, working: total.working },
+		amps,
+		ampsRounded,
+		minimumServiceA,
+		headroomA: fig(
+			head,
+			'A',
+			'service rating less calculated load',
+			() => `${q(ratingA, 'A', 0)} − ${q(ampsRounded.value, 'A', 0)} = ${q(head, 'A', 0)}`,
+		),
+		headroomVA: fig(
+			roundTo(headVA, 3),
+			'VA',
+			'service rating less calculated load',
+			() => `${q(ratingA, 'A', 0)} × ${supply.label} − ${q(total.value, 'VA')} = ${q(headVA, 'VA')}`,
+		),
+		withinService: head >= 0,
+	};
+}
+
+function serviceResult(
+	doc: JobDocument,
+	all: LoadBucket,
+	added: LoadBucket,
+	existingDwelling: boolean,
+	area: { value: number; source: string; figure: Figure },
+	roomsById: ReadonlyMap<string, Room>,
+	jobId: string,
+): ServiceResult {
+	const ed = doc.codeEdition;
+	const svc = doc.service;
+	const supply = supplyOf(svc.voltageSystem);
+	const opts: GeneralLoadOptions = {
+		edition: ed,
+		areaFt2: area.value,
+		areaSource: area.source,
+		minimumCircuits: true,
+	};
+	const std = standardMethod(all, opts, supply);
+	const methods: MethodResult[] = [];
+	methods.push(
+		methodResult(
+			'standard',
+			'Standard method',
+			`NEC ${ed} Article 220 Part III`,
+			true,
+			'Always permitted.',
+			std.lines,
+			std.total,
+			svc.ratingA,
+			supply,
+			ed,
+		),
+	);
+
+	const optRule = section('optional', ed);
+	if (svc.voltageSystem === '120/240-1ph-3w') {
+		const opt = optionalMethod(all, opts);
+		methods.push(
+			methodResult(
+				'optional',
+				'Optional method',
+				optRule,
+				true,
+				'One-family dwelling on a 120/240 V 3-wire service.',
+				opt.lines,
+				opt.total,
+				svc.ratingA,
+				supply,
+				ed,
+			),
+		);
+	} else {
+		methods.push(
+			methodResult(
+				'optional',
+				'Optional method',
+				optRule,
+				false,
+				'Applies to a 120/240 V or 208Y/120 V 3-wire service; this service is three-phase 4-wire.',
+				[],
+				null,
+				svc.ratingA,
+				supply,
+				ed,
+			),
+		);
+	}
+
+	const exRule = section('existingAdded', ed);
+	if (existingDwelling) {
+		const ex = existingAddedMethod(all, added, opts);
+		methods.push(
+			methodResult(
+				'existing-added',
+				'Existing dwelling with added loads',
+				exRule,
+				true,
+				'The job records existing circuits.',
+				ex.lines,
+				ex.total,
+				svc.ratingA,
+				supply,
+				ed,
+			),
+		);
+	} else {
+		methods.push(
+			methodResult(
+				'existing-added',
+				'Existing dwelling with added loads',
+				exRule,
+				false,
+				'No existing circuits are recorded: a new dwelling.',
+				[],
+				null,
+				svc.ratingA,
+				supply,
+				ed,
+			),
+		);
+	}
+
+	const mdRule = section('measuredDemand', ed);
+	const measured = svc.existingLoad;
+	if (measured) {
+		let addedArea = 0;
+		for (const rid of added.rooms) {
+			const room = roomsById.get(rid);
+			if (room && (room.inFloorArea ?? !EXCLUDED_FROM_AREA.has(room.type))) addedArea += room.areaFt2;
+		}
+		const md = measuredDemandMethod(measured.peakDemandKW, added, addedArea, ed);
+		methods.push(
+			methodResult(
+				'measured-demand',
+				'Existing load from measured demand',
+				mdRule,
+				true,
+				'12 months of maximum demand are recorded.',
+				md.lines,
+				md.total,
+				svc.ratingA,
+				supply,
+				ed,
+			),
+		);
+	} else {
+		methods.push(
+			methodResult(
+				'measured-demand',
+				'Existing load from measured demand',
+				mdRule,
+				false,
+				'No 12-month maximum-demand record is given.',
+				[],
+				null,
+				svc.ratingA,
+				supply,
+				ed,
+			),
+		);
+	}
+
+	const findings: Finding[] = [];
+	const job = { kind: 'job', id: jobId } as const;
+	let lowest: MethodResult | null = null;
+	for (const m of methods)
+		if (
+			m.applicable &&
+			m.ampsRounded &&
+			(!lowest || (lowest.ampsRounded && m.ampsRounded.value < lowest.ampsRounded.value))
+		)
+			lowest = m;
+	if (lowest?.ampsRounded) {
+		const a = lowest.ampsRounded.value;
+		findings.push(
+			a <= svc.ratingA
+				? finding(
+						'ok',
+						'service-capacity',
+						() =>
+							`The ${svc.ratingA} A service carries the calculated ${a} A (${lowest.title.toLowerCase()}), leaving ${svc.ratingA - a} A.`,
+						lowest.rule,
+						job,
+					)
+				: finding(
+						'violation',
+						'service-capacity',
+						() =>
+							`The calculated load is ${a} A by the lowest applicable method (${lowest.title.toLowerCase()}); the ${svc.ratingA} A service is too small.`,
+						lowest.rule,
+						job,
+					),
+		);
+	}
+	if (svc.ratingA < MIN_SERVICE_ONE_FAMILY_A) {
+		findings.push(
+			finding(
+				'warning',
+				'service-minimum',
+				() => `A ${svc.ratingA} A service is below the 100 A minimum for a one-family dwelling.`,
+				section('minimumService', ed),
+				job,
+			),
+		);
+	}
+	if (measured) {
+		findings.push(
+			finding(
+				'note',
+				'measured-demand-conditions',
+				'The measured-demand method needs the highest demand over a full year and does not apply where solar or peak-shaving equipment reduces the measured demand.',
+				mdRule,
+				job,
+			),
+		);
+	}
+	const minimum =
+		lowest?.minimumServiceA ??
+		fig(MIN_SERVICE_ONE_FAMILY_A, 'A', section('minimumService', ed), 'one-family dwelling: 100 A');
+
+	const { amps, ampsRounded } = ampsFigures(std.neutralTotal.value, supply, ed);
+	return {
+		ratingA: svc.ratingA,
+		voltageSystem: svc.voltageSystem,
+		floorArea: area.figure,
+		methods,
+		neutral: { lines: [...std.neutralLines, std.neutralTotal], totalVA: std.neutralTotal, amps, ampsRounded },
+		lowestMethod: lowest ? lowest.method : null,
+		minimumServiceA: minimum,
+		findings,
+	};
+}
