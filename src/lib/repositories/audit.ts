@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 
-export type AuditEntity = 'job' | 'room' | 'panel' | 'circuit' | 'load';
+export type AuditEntity = 'job' | 'room' | 'panel' | 'circuit' | 'load' | 'sketch';
 export type AuditAction = 'create' | 'update' | 'delete' | 'move' | 'import';
 
 export interface AuditInput {
@@ -20,7 +20,7 @@ export interface AuditEntry extends AuditInput {
 }
 
 /** Writes one audit row (inside the caller's transaction) and marks the job as changed now. */
-export async function recordAudit(trx: Knex.Transaction, e: AuditInput): Promise<void> {
+export async function recordAudit(trx: Knex, e: AuditInput): Promise<void> {
 	await trx('audit_log').insert({
 		job_id: e.jobId,
 		user_id: e.userId,

@@ -2,6 +2,7 @@ import type { Knex } from 'knex';
 import { type AppError, errors } from '../errors';
 import type { SketchUpdate } from '../schemas/sketch';
 import { MAX_SKETCHES_PER_JOB, type SketchContentType } from '../sketch-storage';
+import { recordAudit } from './audit';
 
 export interface SketchRow {
 	id: string;
@@ -60,7 +61,7 @@ function auditView(row: SketchRow) {
 	return rest;
 }
 
-async function audit(
+function audit(
 	trx: Knex,
 	row: SketchRow,
 	userId: string,
@@ -68,16 +69,15 @@ async function audit(
 	before: SketchRow | null,
 	after: SketchRow | null,
 ): Promise<void> {
-	await trx('audit_log').insert({
-		job_id: row.job_id,
-		user_id: userId,
+	return recordAudit(trx, {
+		jobId: row.job_id,
+		userId,
 		entity: 'sketch',
-		entity_id: row.id,
+		entityId: row.id,
 		action,
-		before: before ? JSON.stringify(auditView(before)) : null,
-		after: after ? JSON.stringify(auditView(after)) : null,
+		before: before ? auditView(before) : null,
+		after: after ? auditView(after) : null,
 	});
-	await trx('jobs').where({ id: row.job_id }).update({ updated_at: trx.fn.now() });
 }
 
 /** A job's sketches in upload order. */
