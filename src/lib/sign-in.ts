@@ -22,20 +22,23 @@ export async function checkCredentials(
 	ip: string,
 ): Promise<SignInOutcome> {
 	const since = knex.raw(`now() - interval '${THROTTLE.windowMinutes} minutes'`);
-	const [{ count: accountFailures }] = await knex('sign_in_attempts')
-		.where({ email, succeeded: false })
-		.andWhere('created_at', '>', since)
-		.count<{ count: string }[]>('* as count');
-	const [{ count: addressFailures }] = await knex('sign_in_attempts')
-		.where({ ip, succeeded: false })
-		.andWhere('created_at', '>', since)
-		.count<{ count: string }[]>('* as count');
-	const failures = Math.max(Number(accountFailures), 0);
-	if (failures >= THROTTLE.perAccount || Number(addressFailures) >= THROTTLE.perAddress) {
+	const failuresSince = async (column: 'email' | 'ip', value: string): Promise<number> => {
+		const row = await knex('sign_in_attempts')
+			.where({ [column]: value, succeeded: false })
+			.andWhere('created_at', '>', since)
+			.count<{ count: string }>('* as count')
+			.first();
+		return Number(row?.count ?? 0);
+	};
+	const [accountFailures, addressFailures] = await Promise.all([
+		failuresSince('email', email),
+		failuresSince('ip', ip),
+	]);
+	if (accountFailures >= THROTTLE.perAccount || addressFailures >= THROTTLE.perAddress) {
 		return { ok: false, reason: 'throttled' };
 	}
 	// Each earlier failure adds a little wait before the answer.
-	if (failures > 0) await sleep(Math.min(250 * failures, 1500));
+	if (accountFailures > 0) await sleep(Math.min(250 * accountFailures, 1500));
 
 	const user = await findUserByEmail(knex, email);
 	const valid = await verifyPassword(password, user?.password_hash);

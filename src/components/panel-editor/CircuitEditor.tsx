@@ -1,0 +1,327 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useEffect, useRef, useState } from 'react';
+import { Controller, useForm } from 'react-hook-form';
+import { messageOf } from '../../lib/client/api-client';
+import type { RoomRecord } from '../../lib/client/job-tree';
+import type { CircuitResult } from '../../lib/electrical';
+import { num } from '../../lib/electrical/format';
+import { BREAKER_RATINGS_A, CONDUCTOR_SIZES } from '../../lib/electrical/tables';
+import FormField, { fieldAria } from '../auth/FormField';
+import { applyServerErrors, asNumber } from '../jobs/form-helpers';
+import Notice from '../ui/Notice';
+import SeverityBadge from '../ui/SeverityBadge';
+import { circuitFormSchema, type CircuitFormInput, type CircuitFormValues } from './editor-schema';
+import LoadsTable from './LoadsTable';
+import RoomPicker from './RoomPicker';
+
+const FIELDS = [
+	'position',
+	'poles',
+	'ratingA',
+	'breakerType',
+	'conductor',
+	'lengthFt',
+	'label',
+	'roomIds',
+	'status',
+	'gfciAtDevice',
+	'afciAtDevice',
+	'loads',
+] as const;
+const BREAKER_LABELS: Record<string, string> = {
+	standard: 'Standard',
+	afci: 'AFCI',
+	gfci: 'GFCI',
+	'dual-function': 'Dual-function (AFCI + GFCI)',
+	gfpe: 'GFPE (equipment)',
+};
+
+interface Props {
+	title: string;
+	initial: CircuitFormInput;
+	isNew: boolean;
+	rooms: RoomRecord[];
+	result: CircuitResult | null;
+	conflict: React.ReactNode;
+	onDraft: (values: CircuitFormInput) => void;
+	onSave: (values: CircuitFormValues) => Promise<void>;
+	onDelete?: () => void;
+	onClose: () => void;
+	moveControl?: React.ReactNode;
+}
+
+/** The selected breaker's circuit and its loads, checked by the shared schemas as you type. */
+export default function CircuitEditor({
+	title,
+	initial,
+	isNew,
+	rooms,
+	result,
+	conflict,
+	onDraft,
+	onSave,
+	onDelete,
+	onClose,
+	moveControl,
+}: Props) {
+	const [message, setMessage] = useState<string | null>(null);
+	const [saved, setSaved] = useState(false);
+	const headingRef = useRef<HTMLHeadingElement>(null);
+	const form = useForm<CircuitFormInput, unknown, CircuitFormValues>({
+		resolver: zodResolver(circuitFormSchema),
+		defaultValues: initial,
+		mode: 'onChange',
+	});
+	const { register, handleSubmit, setError, control, watch, setValue, formState } = form;
+	const { errors, isSubmitting, isDirty } = formState;
+
+	useEffect(() => {
+		headingRef.current?.focus();
+	}, []);
+	useEffect(() => {
+		onDraft(form.getValues());
+		const sub = watch((values) => {
+			setSaved(false);
+			onDraft(values as CircuitFormInput);
+		});
+		return () => sub.unsubscribe();
+		// eslint-disable-next-line react-hooks/exhaustive-deps
+	}, [watch]);
+
+	const submit = handleSubmit(async (values) => {
+		setMessage(null);
+		try {
+			await onSave(values);
+			setSaved(true);
+		} catch (err) {
+			const rest = applyServerErrors(err, setError, FIELDS);
+			setMessage([messageOf(err), ...rest].join(' '));
+		}
+	});
+
+	const e = (path: string): string | undefined => {
+		let node: unknown = errors;
+		for (const part of path.split('.')) node = (node as Record<string, unknown> | undefined)?.[part];
+		return (node as { message?: string } | undefined)?.message;
+	};
+	const poles = watch('poles');
+
+	return (
+		<form
+			onSubmit={submit}
+			noValidate
+			aria-labelledby="circuit-editor-title"
+			className="space-y-4"
+			data-testid="circuit-editor"
+		>
+			<div className="flex flex-wrap items-start justify-between gap-2">
+				<h2
+					id="circuit-editor-title"
+					ref={headingRef}
+					tabIndex={-1}
+					className="text-lg font-bold text-ink-950"
+				>
+					{title}
+				</h2>
+				<button type="button" className="btn-quiet px-2 py-1 text-xs" onClick={onClose}>
+					Close
+				</button>
+			</div>
+			{conflict}
+			{message && <Notice tone="error">{message}</Notice>}
+			{saved && !isDirty && <Notice tone="ok">Saved.</Notice>}
+
+			{result && (
+				<div className="rounded-md bg-ink-50 p-3 text-sm" data-testid="circuit-figures">
+					<dl className="grid grid-cols-2 gap-x-4 gap-y-1 sm:grid-cols-3">
+						<div title={`${result.connectedVA.rule}: ${result.connectedVA.working}`}>
+							<dt className="text-xs text-ink-500">Connected load</dt>
+							<dd className="font-mono font-semibold">{num(result.connectedVA.value)} VA</dd>
+						</div>
+						<div title={`${result.breakerLoadA.rule}: ${result.breakerLoadA.working}`}>
+							<dt className="text-xs text-ink-500">Load on the breaker</dt>
+							<dd className="font-mono font-semibold" data-testid="breaker-load">
+								{num(result.breakerLoadA.value, 1)} A of {result.breakerA.value} A
+							</dd>
+						</div>
+						<div title={result.voltageDrop.percent.working}>
+							<dt className="text-xs text-ink-500">Voltage drop</dt>
+							<dd className="font-mono font-semibold">{num(result.voltageDrop.percent.value, 2)} %</dd>
+						</div>
+					</dl>
+					<p className="mt-1 font-mono text-xs text-ink-600">
+						{result.breakerLoadA.working}{' '}
+						<span className="text-copper-700">({result.breakerLoadA.rule})</span>
+					</p>
+					{result.findings.filter((f) => f.severity !== 'ok').length > 0 && (
+						<ul className="mt-2 space-y-1" data-testid="circuit-findings">
+							{result.findings
+								.filter((f) => f.severity !== 'ok')
+								.map((f, i) => (
+									<li key={`${f.code}-${i}`} className="flex items-start gap-2">
+										<SeverityBadge severity={f.severity} />
+										<span>
+											{f.message} <span className="text-xs text-copper-700">{f.rule}</span>
+										</span>
+									</li>
+								))}
+						</ul>
+					)}
+				</div>
+			)}
+
+			<div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
+				<div className="sm:col-span-2 lg:col-span-3">
+					<FormField id="c-label" label="Label (circuit directory, 408.4(A))" error={e('label')}>
+						<input
+							{...register('label')}
+							{...fieldAria('c-label', e('label'))}
+							className="field-input"
+							placeholder="Kitchen counter receptacles, east"
+						/>
+					</FormField>
+				</div>
+				<FormField id="c-ratingA" label="Breaker rating" error={e('ratingA')}>
+					<select
+						{...register('ratingA', { setValueAs: asNumber })}
+						{...fieldAria('c-ratingA', e('ratingA'))}
+						className="field-input"
+					>
+						{BREAKER_RATINGS_A.filter((a) => a <= 200).map((a) => (
+							<option key={a} value={a}>
+								{a} A
+							</option>
+						))}
+					</select>
+				</FormField>
+				<FormField id="c-poles" label="Poles" error={e('poles')}>
+					<select
+						{...register('poles', { setValueAs: asNumber })}
+						{...fieldAria('c-poles', e('poles'))}
+						className="field-input"
+						disabled={!isNew}
+					>
+						<option value={1}>1-pole (120 V)</option>
+						<option value={2}>2-pole (240 V / 208 V)</option>
+						<option value={3}>3-pole</option>
+					</select>
+				</FormField>
+				<FormField id="c-breakerType" label="Breaker type" error={e('breakerType')}>
+					<select
+						{...register('breakerType')}
+						{...fieldAria('c-breakerType', e('breakerType'))}
+						className="field-input"
+					>
+						{Object.entries(BREAKER_LABELS).map(([k, label]) => (
+							<option key={k} value={k}>
+								{label}
+							</option>
+						))}
+					</select>
+				</FormField>
+				<FormField id="c-size" label="Conductor size (AWG)" error={e('conductor.size')}>
+					<select
+						{...register('conductor.size')}
+						{...fieldAria('c-size', e('conductor.size'))}
+						className="field-input"
+					>
+						{CONDUCTOR_SIZES.map((s) => (
+							<option key={s} value={s}>
+								{s} AWG
+							</option>
+						))}
+					</select>
+				</FormField>
+				<FormField id="c-material" label="Conductor material" error={e('conductor.material')}>
+					<select
+						{...register('conductor.material')}
+						{...fieldAria('c-material', e('conductor.material'))}
+						className="field-input"
+					>
+						<option value="cu">Copper</option>
+						<option value="al">Aluminum</option>
+					</select>
+				</FormField>
+				<FormField id="c-insulation" label="Insulation rating" error={e('conductor.insulationC')}>
+					<select
+						{...register('conductor.insulationC', { setValueAs: asNumber })}
+						{...fieldAria('c-insulation', e('conductor.insulationC'))}
+						className="field-input"
+					>
+						{[60, 75, 90].map((t) => (
+							<option key={t} value={t}>
+								{t} °C
+							</option>
+						))}
+					</select>
+				</FormField>
+				<FormField id="c-lengthFt" label="One-way length (ft)" error={e('lengthFt')}>
+					<input
+						inputMode="decimal"
+						{...register('lengthFt', { setValueAs: asNumber })}
+						{...fieldAria('c-lengthFt', e('lengthFt'))}
+						className="field-input"
+					/>
+				</FormField>
+				<FormField id="c-status" label="Status" error={e('status')}>
+					<select {...register('status')} {...fieldAria('c-status', e('status'))} className="field-input">
+						<option value="existing">Existing</option>
+						<option value="new">New</option>
+						<option value="modified">Modified</option>
+						<option value="removed">Removed</option>
+					</select>
+				</FormField>
+				<div className="flex flex-col justify-end gap-1 text-sm">
+					<label className="inline-flex items-center gap-2">
+						<input type="checkbox" {...register('gfciAtDevice')} className="h-4 w-4 accent-copper-600" /> GFCI
+						at the first outlet
+					</label>
+					<label className="inline-flex items-center gap-2">
+						<input type="checkbox" {...register('afciAtDevice')} className="h-4 w-4 accent-copper-600" /> AFCI
+						at the first outlet
+					</label>
+				</div>
+			</div>
+
+			<Controller
+				control={control}
+				name="roomIds"
+				render={({ field }) => (
+					<RoomPicker
+						id="c-rooms"
+						legend="Rooms served"
+						rooms={rooms}
+						value={field.value ?? []}
+						onChange={field.onChange}
+					/>
+				)}
+			/>
+			{e('roomIds') && <p className="field-error">{e('roomIds')}</p>}
+
+			<div>
+				<h3 className="mb-2 font-semibold text-ink-900">Loads</h3>
+				<LoadsTable
+					control={control}
+					register={register}
+					watch={watch}
+					setValue={setValue}
+					errors={errors}
+					rooms={rooms}
+					defaultVoltage={Number(poles) > 1 ? 240 : 120}
+				/>
+			</div>
+
+			<div className="flex flex-wrap items-center gap-2 border-t border-ink-100 pt-3">
+				<button type="submit" className="btn-primary" disabled={isSubmitting}>
+					{isSubmitting ? 'Saving…' : isNew ? 'Add the breaker' : 'Save the circuit'}
+				</button>
+				{onDelete && (
+					<button type="button" className="btn-quiet text-signal-violation" onClick={onDelete}>
+						Delete the breaker…
+					</button>
+				)}
+			</div>
+			{moveControl}
+		</form>
+	);
+}

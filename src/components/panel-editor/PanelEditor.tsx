@@ -1,0 +1,487 @@
+import { useCallback, useMemo, useState } from 'react';
+import { api, ApiError, messageOf } from '../../lib/client/api-client';
+import { computeTree, type CircuitRecord, type JobTree, type LoadRecord } from '../../lib/client/job-tree';
+import { useResource } from '../../lib/client/use-resource';
+import { circuitSchema, loadSchema } from '../../lib/electrical/schema';
+import { num } from '../../lib/electrical/format';
+import { positionsTaken } from '../../lib/electrical/positions';
+import ConfirmDialog from '../ui/ConfirmDialog';
+import LoadState from '../ui/LoadState';
+import Notice from '../ui/Notice';
+import { worstSeverity } from '../ui/SeverityBadge';
+import CircuitEditor from './CircuitEditor';
+import type { CircuitFormInput, CircuitFormValues } from './editor-schema';
+import PanelGrid, { type GridBreaker } from './PanelGrid';
+import PanelTotals from './PanelTotals';
+import ConflictNotice from '../job/ConflictNotice';
+
+interface Props {
+	jobId: string;
+	panelId: string;
+	initialCircuitId?: string;
+}
+
+function formValuesOf(c: CircuitRecord, loads: LoadRecord[]): CircuitFormInput {
+	return {
+		position: c.position,
+		poles: c.poles,
+		ratingA: c.ratingA,
+		breakerType: c.breakerType,
+		conductor: { ...c.conductor },
+		lengthFt: c.lengthFt,
+		label: c.label,
+		roomIds: [...c.roomIds],
+		status: c.status,
+		multiwireWith: c.multiwireWith,
+		gfciAtDevice: c.gfciAtDevice,
+		afciAtDevice: c.afciAtDevice,
+		loads: loads
+			.filter((l) => l.circuitId === c.id)
+			.map((l) => ({
+				record: { id: l.id, version: l.version },
+				load: {
+					kind: l.kind,
+					description: l.description,
+					quantity: l.quantity,
+					va: l.va,
+					watts: l.watts,
+					hp: l.hp as never,
+					voltage: l.voltage,
+					continuous: l.continuous,
+					cordAndPlug: l.cordAndPlug,
+					status: l.status,
+					spaceHeating: l.spaceHeating,
+					roomIds: [...l.roomIds],
+				},
+			})),
+	};
+}
+
+function blankCircuit(position: number): CircuitFormInput {
+	return {
+		position,
+		poles: 1,
+		ratingA: 20 as never,
+		breakerType: 'standard',
+		conductor: { size: '12', material: 'cu', insulationC: 90 },
+		lengthFt: 50,
+		label: '',
+		roomIds: [],
+		status: 'new',
+		multiwireWith: null,
+		gfciAtDevice: false,
+		afciAtDevice: false,
+		loads: [],
+	};
+}
+
+const DRAFT_ID = '__draft__';
+
+/**
+ * The panelboard editor: the breaker positions, the selected circuit's form, and the panel's leg
+ * totals and headroom, recomputed by the engine in the browser as you type.
+ */
+export default function PanelEditor({ jobId, panelId, initialCircuitId }: Props) {
+	const tree = useResource(() => api<JobTree>(`/api/jobs/${jobId}/tree`), jobId);
+	const t = tree.data;
+	const panel = t?.panels.find((p) => p.id === panelId) ?? null;
+	const [selected, setSelected] = useState<number | null>(null);
+	const [selectedFromUrl, setSelectedFromUrl] = useState(false);
+	const [draft, setDraft] = useState<CircuitFormInput | null>(null);
+	const [conflict, setConflict] = useState<Record<string, unknown> | null>(null);
+	const [notice, setNotice] = useState<string | null>(null);
+	const [moveTo, setMoveTo] = useState('');
+	const [deleting, setDeleting] = useState(false);
+	const [busy, setBusy] = useState(false);
+	const [editorKey, setEditorKey] = useState(0);
+
+	if (t && !selectedFromUrl) {
+		setSelectedFromUrl(true);
+		const c = initialCircuitId
+			? t.circuits.find((x) => x.id === initialCircuitId && x.panelId === panelId)
+			: undefined;
+		if (c) setSelected(c.position);
+	}
+
+	const circuits = useMemo(() => (t ? t.circuits.filter((c) => c.panelId === panelId) : []), [t, panelId]);
+	const current =
+		selected === null
+			? null
+			: (circuits.find((c) => positionsTaken(c.position, c.poles).includes(selected)) ?? null);
+
+	// The job with the form's values in place of the saved circuit (only values the schemas accept).
+	const preview = useMemo(() => {
+		if (!t || !panel) return null;
+		if (!draft || selected === null) return t;
+		const id = current?.id ?? DRAFT_ID;
+		const { loads: draftLoads, ...draftCircuit } = draft;
+		const c = circuitSchema.safeParse({ ...draftCircuit, id, panelId, roomIds: draftCircuit.roomIds ?? [] });
+		if (!c.success) return t;
+		const circuit: CircuitRecord = { ...c.data, jobId, version: current?.version ?? 0 };
+		const loads: LoadRecord[] = [];
+		(draftLoads ?? []).forEach((row, i) => {
+			const l = loadSchema.safeParse({
+				...row.load,
+				id: row.record?.id ?? `${DRAFT_ID}-${i}`,
+				circuitId: id,
+			});
+			if (l.success)
+				loads.push({
+					...l.data,
+					va: l.data.va ?? null,
+					watts: l.data.watts ?? null,
+					hp: l.data.hp ?? null,
+					jobId,
+					version: 0,
+				});
+		});
+		return {
+			...t,
+			circuits: current ? t.circuits.map((x) => (x.id === id ? circuit : x)) : [...t.circuits, circuit],
+			loads: [...t.loads.filter((l) => l.circuitId !== id), ...loads],
+		};
+	}, [t, panel, draft, selected, current, jobId, panelId]);
+	const engine = useMemo(() => (preview ? computeTree(preview) : null), [preview]);
+	const results = engine?.ok ? engine.results : null;
+	const panelResult = results?.panels.find((p) => p.panelId === panelId) ?? null;
+
+	const breakers: GridBreaker[] = (preview?.circuits ?? [])
+		.filter((c) => c.panelId === panelId)
+		.map((c) => {
+			const r = results?.circuits.find((x) => x.circuitId === c.id);
+			return {
+				id: c.id,
+				position: c.position,
+				poles: c.poles,
+				ratingA: c.ratingA,
+				label: c.label,
+				breakerType: c.breakerType,
+				severity: r ? worstSeverity(r.findings.map((f) => f.severity)) : 'ok',
+			};
+		});
+
+	const select = useCallback((p: number) => {
+		setSelected(p);
+		setDraft(null);
+		setConflict(null);
+		setNotice(null);
+		setMoveTo('');
+		setEditorKey((k) => k + 1);
+	}, []);
+
+	const save = async (values: CircuitFormValues) => {
+		if (!t) return;
+		setConflict(null);
+		const { loads: rows, ...circuitValues } = values;
+		let circuit: CircuitRecord;
+		try {
+			if (current) {
+				const { position: _p, poles: _n, ...rest } = circuitValues;
+				circuit = (
+					await api<{ circuit: CircuitRecord }>(`/api/circuits/${current.id}`, {
+						method: 'PATCH',
+						body: { ...rest, version: current.version },
+					})
+				).circuit;
+			} else {
+				circuit = (
+					await api<{ circuit: CircuitRecord }>(`/api/panels/${panelId}/circuits`, {
+						method: 'POST',
+						body: circuitValues,
+					})
+				).circuit;
+			}
+		} catch (err) {
+			if (err instanceof ApiError && err.status === 409 && err.current) {
+				setConflict(err.current as Record<string, unknown>);
+				throw new ApiError(409, 'conflict', 'Nothing was saved.');
+			}
+			throw err;
+		}
+		// Loads: write the changed and new rows, delete the removed ones.
+		const before = t.loads.filter((l) => l.circuitId === circuit.id);
+		const kept = new Set(rows.map((r) => r.record?.id).filter(Boolean));
+		let loads = t.loads.filter((l) => l.circuitId !== circuit.id);
+		const written: LoadRecord[] = [];
+		try {
+			for (const old of before)
+				if (!kept.has(old.id))
+					await api(`/api/loads/${old.id}`, { method: 'DELETE', body: { version: old.version } });
+			for (const row of rows) {
+				const old = before.find((l) => l.id === row.record?.id);
+				if (old) {
+					const same =
+						JSON.stringify(formValuesOf({ ...circuit }, [old]).loads[0]?.load) ===
+						JSON.stringify({
+							...row.load,
+							hp: row.load.hp ?? null,
+							va: row.load.va ?? null,
+							watts: row.load.watts ?? null,
+						});
+					written.push(
+						same
+							? old
+							: (
+									await api<{ load: LoadRecord }>(`/api/loads/${old.id}`, {
+										method: 'PATCH',
+										body: { ...row.load, version: old.version },
+									})
+								).load,
+					);
+				} else {
+					written.push(
+						(
+							await api<{ load: LoadRecord }>(`/api/circuits/${circuit.id}/loads`, {
+								method: 'POST',
+								body: row.load,
+							})
+						).load,
+					);
+				}
+			}
+		} finally {
+			loads = [...loads, ...written];
+			tree.setData((prev) => {
+				const p = prev as JobTree;
+				const exists = p.circuits.some((c) => c.id === circuit.id);
+				return {
+					...p,
+					circuits: exists
+						? p.circuits.map((c) => (c.id === circuit.id ? circuit : c))
+						: [...p.circuits, circuit],
+					loads,
+				};
+			});
+		}
+		setSelected(circuit.position);
+		setDraft(null);
+		setEditorKey((k) => k + 1);
+		setNotice(`Saved ${circuit.label || 'the circuit'}.`);
+	};
+
+	const move = async () => {
+		if (!current || !moveTo) return;
+		setBusy(true);
+		setNotice(null);
+		try {
+			const { circuit } = await api<{ circuit: CircuitRecord }>(`/api/circuits/${current.id}/move`, {
+				method: 'POST',
+				body: { position: Number(moveTo), version: current.version },
+			});
+			tree.setData((prev) => ({
+				...(prev as JobTree),
+				circuits: (prev as JobTree).circuits.map((c) => (c.id === circuit.id ? circuit : c)),
+			}));
+			setSelected(circuit.position);
+			setDraft(null);
+			setMoveTo('');
+			setEditorKey((k) => k + 1);
+			setNotice(
+				`Moved ${circuit.label || 'the breaker'} to position ${positionsTaken(circuit.position, circuit.poles).join(' & ')}.`,
+			);
+		} catch (err) {
+			if (err instanceof ApiError && err.status === 409 && err.current)
+				setConflict(err.current as Record<string, unknown>);
+			else setNotice(null);
+			setMoveError(messageOf(err));
+		} finally {
+			setBusy(false);
+		}
+	};
+	const [moveError, setMoveError] = useState<string | null>(null);
+
+	const remove = async () => {
+		if (!current) return;
+		setBusy(true);
+		try {
+			await api(`/api/circuits/${current.id}`, { method: 'DELETE', body: { version: current.version } });
+			tree.setData((prev) => {
+				const p = prev as JobTree;
+				return {
+					...p,
+					circuits: p.circuits.filter((c) => c.id !== current.id),
+					loads: p.loads.filter((l) => l.circuitId !== current.id),
+				};
+			});
+			setNotice(`Deleted ${current.label || 'the breaker'}.`);
+			setSelected(null);
+			setDraft(null);
+		} catch (err) {
+			setNotice(messageOf(err));
+		} finally {
+			setBusy(false);
+			setDeleting(false);
+		}
+	};
+
+	// Positions the selected breaker could move to: every position it would take is free (or its own) and within the panel.
+	const moveTargets = (() => {
+		if (!current || !panel) return [];
+		const taken = new Set(
+			circuits.filter((c) => c.id !== current.id).flatMap((c) => positionsTaken(c.position, c.poles)),
+		);
+		const out: number[] = [];
+		for (let p = 1; p <= panel.spaces; p++) {
+			if (p === current.position) continue;
+			const need = positionsTaken(p, current.poles);
+			if (need.every((q) => q <= panel.spaces && !taken.has(q))) out.push(p);
+		}
+		return out;
+	})();
+
+	if (t && !panel) {
+		return (
+			<Notice tone="error">
+				This panelboard is not part of the job any more.{' '}
+				<a className="underline" href={`/contractor/jobs/${jobId}#panels`}>
+					Back to the job
+				</a>
+			</Notice>
+		);
+	}
+
+	return (
+		<LoadState
+			loading={tree.loading}
+			error={tree.error}
+			onRetry={tree.reload}
+			what="the panelboard"
+			hasData={!!t}
+		>
+			{t && panel && (
+				<div className="space-y-4">
+					<div>
+						<p className="text-sm text-ink-500">
+							<a href="/contractor/jobs" className="underline">
+								Jobs
+							</a>{' '}
+							/{' '}
+							<a href={`/contractor/jobs/${jobId}#panels`} className="underline">
+								{t.job.name}
+							</a>{' '}
+							/
+						</p>
+						<h1 className="text-2xl font-bold tracking-tight text-ink-950">{panel.name}</h1>
+						<p className="text-ink-600">
+							{panel.kind === 'main' ? 'Main panel' : 'Subpanel'} · {panel.busRatingA} A bus ·{' '}
+							{panel.mainBreakerA ? `${panel.mainBreakerA} A main breaker` : 'main-lug'} · {panel.spaces}{' '}
+							spaces
+							{panel.location && ` · ${panel.location}`}
+						</p>
+						<p className="mt-2 rounded-md border border-signal-warning/40 bg-amber-50 p-2 text-sm text-ink-900">
+							Switch off and verify the panel is de-energised before touching it. Panel and service work is
+							for licensed electricians and the utility.
+						</p>
+					</div>
+					{notice && <Notice tone="ok">{notice}</Notice>}
+					{engine && !engine.ok && (
+						<Notice tone="info">
+							The checks run once the job is complete enough: {engine.errors.join('; ')}
+						</Notice>
+					)}
+					<div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(22rem,28rem)_1fr]">
+						<div className="min-w-0 space-y-4">
+							<PanelGrid
+								spaces={panel.spaces}
+								voltageSystem={panel.voltageSystem}
+								breakers={breakers}
+								selected={selected}
+								onSelect={select}
+							/>
+							{panelResult && <PanelTotals panel={panel} result={panelResult} />}
+							<a className="btn-quiet" href={`/api/panels/${panel.id}/circuits.csv`} download>
+								Panel schedule (CSV)
+							</a>
+						</div>
+						<div className="panel-card min-w-0">
+							{selected === null ? (
+								<p className="text-ink-600">
+									Select a position (click it, or Tab to it and press Enter) to add a breaker or edit its
+									circuit.
+								</p>
+							) : (
+								<CircuitEditor
+									key={editorKey}
+									title={
+										current
+											? `Positions ${positionsTaken(current.position, current.poles).join(' & ')}: ${current.label || 'unlabelled circuit'}`
+											: `New breaker at position ${selected}`
+									}
+									initial={current ? formValuesOf(current, t.loads) : blankCircuit(selected)}
+									isNew={!current}
+									rooms={t.rooms}
+									result={results?.circuits.find((r) => r.circuitId === (current?.id ?? DRAFT_ID)) ?? null}
+									onDraft={setDraft}
+									onSave={save}
+									onClose={() => {
+										setSelected(null);
+										setDraft(null);
+									}}
+									onDelete={current ? () => setDeleting(true) : undefined}
+									conflict={
+										conflict && (
+											<ConflictNotice
+												what="circuit"
+												current={conflict}
+												fields={[
+													['label', 'Label'],
+													['ratingA', 'Breaker (A)'],
+													['position', 'Position'],
+													['lengthFt', 'Length (ft)'],
+													['breakerType', 'Type'],
+												]}
+												onReload={async () => {
+													setConflict(null);
+													await tree.reload();
+													setDraft(null);
+													setEditorKey((k) => k + 1);
+												}}
+											/>
+										)
+									}
+									moveControl={
+										current && (
+											<div className="flex flex-wrap items-end gap-2 border-t border-ink-100 pt-3">
+												<div>
+													<label htmlFor="move-to" className="field-label">
+														Move to…
+													</label>
+													<select
+														id="move-to"
+														value={moveTo}
+														onChange={(e) => setMoveTo(e.target.value)}
+														className="field-input"
+													>
+														<option value="">Choose a free position</option>
+														{moveTargets.map((p) => (
+															<option key={p} value={p}>
+																Position {positionsTaken(p, current.poles).join(' & ')}
+															</option>
+														))}
+													</select>
+												</div>
+												<button type="button" className="btn-quiet" disabled={!moveTo || busy} onClick={move}>
+													Move the breaker
+												</button>
+												{moveError && <p className="field-error w-full">{moveError}</p>}
+											</div>
+										)
+									}
+								/>
+							)}
+						</div>
+					</div>
+					<ConfirmDialog
+						open={deleting}
+						title={`Delete ${current?.label || 'this breaker'}?`}
+						body="The breaker and every load on it are deleted. This cannot be undone."
+						confirmLabel="Delete the breaker"
+						busy={busy}
+						onConfirm={remove}
+						onCancel={() => setDeleting(false)}
+					/>
+				</div>
+			)}
+		</LoadState>
+	);
+}
