@@ -37,6 +37,8 @@ export interface LoadBucket {
 	heatCentralUnits: number;
 	heatRoomUnitsVA: number;
 	heatRoomUnits: number;
+	/** VA of the three largest separately controlled space-heating units (central and room units). */
+	heatUnitTop3: number[];
 	heatSupplementalVA: number;
 	heatStorageVA: number;
 	coolingVA: number;
@@ -68,6 +70,7 @@ export function emptyBucket(): LoadBucket {
 		heatCentralUnits: 0,
 		heatRoomUnitsVA: 0,
 		heatRoomUnits: 0,
+		heatUnitTop3: [],
 		heatSupplementalVA: 0,
 		heatStorageVA: 0,
 		coolingVA: 0,
@@ -98,6 +101,7 @@ export function mergeBucket(into: LoadBucket, from: LoadBucket): LoadBucket {
 	into.heatCentralUnits += from.heatCentralUnits;
 	into.heatRoomUnitsVA += from.heatRoomUnitsVA;
 	into.heatRoomUnits += from.heatRoomUnits;
+	for (const v of from.heatUnitTop3) pushTop3(into.heatUnitTop3, v);
 	into.heatSupplementalVA += from.heatSupplementalVA;
 	into.heatStorageVA += from.heatStorageVA;
 	into.coolingVA += from.coolingVA;
@@ -184,6 +188,9 @@ export function addLoad(b: LoadBucket, load: Load, edition: Edition, firstOfKind
 			} else if (type === 'room-units') {
 				b.heatRoomUnitsVA += total;
 				b.heatRoomUnits += n;
+			}
+			if (type === 'central' || type === 'room-units') {
+				for (let i = 0; i < Math.min(n, 3); i++) pushTop3(b.heatUnitTop3, each);
 			} else if (type === 'heat-pump-supplemental') b.heatSupplementalVA += total;
 			else b.heatStorageVA += total;
 			return;
@@ -304,6 +311,23 @@ export function dryerDemandPct(n: number): number {
 	if (n <= 23) return 47 - (n - 11);
 	if (n <= 42) return 35 - 0.5 * (n - 23);
 	return 25;
+}
+
+/**
+ * The largest demand any smaller group of the same dryers would give under Table 220.54. Read
+ * literally, adding a small dryer can move the whole group to a lower factor and lower the demand;
+ * adding a load must never lower the calculated load, so the group is taken at no less than this.
+ */
+export function dryerDemandFloor(eachVA: readonly number[]): { va: number; count: number } {
+	const sorted = [...eachVA].sort((a, b) => b - a);
+	let best = { va: 0, count: 0 };
+	let running = 0;
+	for (let k = 1; k <= sorted.length; k++) {
+		running += sorted[k - 1] ?? 0;
+		const va = roundTo((running * dryerDemandPct(k)) / 100, 6);
+		if (va > best.va) best = { va, count: k };
+	}
+	return best;
 }
 
 /** Lighting demand of Table 220.42 / 220.45: first 3000 VA at 100 %, up to 120,000 VA at 35 %, rest at 25 %. */
@@ -481,12 +505,17 @@ export function standardMethod(b: LoadBucket, o: GeneralLoadOptions, supply: Sup
 	if (b.dryerVA.length > 0) {
 		const each = b.dryerVA.map((d) => Math.max(5000, d));
 		const pct = dryerDemandPct(each.length);
-		dryerDemand = roundTo((sumOf(each) * pct) / 100, 6);
+		const literal = roundTo((sumOf(each) * pct) / 100, 6);
+		const floor = dryerDemandFloor(each);
+		dryerDemand = Math.max(literal, floor.va);
 		const w =
 			b.dryerVA
 				.map((d) => (d >= 5000 ? `${q(d, 'W')} nameplate` : `${q(d, 'W')} nameplate, 5,000 W minimum`))
 				.join(' + ') +
-			(pct < 100 ? ` × ${pct} % (${each.length} dryers)` : '') +
+			(pct < 100 ? ` × ${pct} % (${each.length} dryers) = ${q(literal, 'VA')}` : '') +
+			(floor.va > literal
+				? `; not less than the ${floor.count} largest at ${dryerDemandPct(floor.count)} %, ${q(floor.va, 'VA')}`
+				: '') +
 			` → ${q(dryerDemand, 'VA')}`;
 		const l = line('dryers', 'Clothes dryers', dryerDemand, 'VA', section('dryers', ed), w);
 		lines.push(l);
@@ -703,12 +732,20 @@ export function optionalMethod(b: LoadBucket, o: GeneralLoadOptions): OptionalMe
 				va: spaceVA * 0.65,
 				working: `${q(spaceVA, 'VA')} × 65 % = ${q(spaceVA * 0.65, 'VA')}`,
 			});
-		else
+		else {
+			// Read literally, a fourth unit drops the group from 65 % to 40 % and can lower the load;
+			// the group is taken at no less than its three largest units at 65 %.
+			const top3 = sumOf(b.heatUnitTop3) + (hp === 0 ? supp : 0);
+			const floored = top3 * 0.65 > spaceVA * 0.4;
+			const va = Math.max(spaceVA * 0.4, top3 * 0.65);
 			choices.push({
 				label: '(C)(5) space heating, four or more units, at 40 %',
-				va: spaceVA * 0.4,
-				working: `${q(spaceVA, 'VA')} × 40 % = ${q(spaceVA * 0.4, 'VA')}`,
+				va,
+				working:
+					`${q(spaceVA, 'VA')} × 40 % = ${q(spaceVA * 0.4, 'VA')}` +
+					(floored ? `; not less than the three largest units at 65 %, ${q(va, 'VA')}` : ''),
 			});
+		}
 	}
 	if (b.heatStorageVA > 0)
 		choices.push({
