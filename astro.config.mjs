@@ -27,5 +27,4 @@ export default defineConfig({
 		],
 	},
 	server: { host: '127.0.0.1', port: 4321 },
-	telemetry: false,
 });

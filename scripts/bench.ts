@@ -1,8 +1,12 @@
 /** Runs the project's benchmarks and prints their figures.  npm run bench */
+import { benchDocuments } from './bench/documents';
 import { benchEngine } from './bench/engine';
 import type { BenchFigure } from './bench/engine';
 
-const benches: { name: string; run: () => Promise<BenchFigure[]> }[] = [{ name: 'engine', run: benchEngine }];
+const benches: { name: string; run: () => Promise<BenchFigure[]> }[] = [
+	{ name: 'engine', run: benchEngine },
+	{ name: 'documents', run: benchDocuments },
+];
 
 let missed = 0;
 for (const b of benches) {

@@ -48,7 +48,8 @@ const AREA_ROLES: [prefix: string, role: Role][] = [
 
 /** Paths anyone may open without signing in. */
 const PUBLIC_PATHS = ['/', '/sign-in', '/sign-up', '/api/sign-up', '/api/health'];
-const PUBLIC_PREFIXES = ['/api/auth/', '/_astro/', '/favicon'];
+// '/map/' pages open a home's panel map by the random link on its directory card.
+const PUBLIC_PREFIXES = ['/api/auth/', '/_astro/', '/favicon', '/map/'];
 
 export function isPublicPath(pathname: string): boolean {
 	return PUBLIC_PATHS.includes(pathname) || PUBLIC_PREFIXES.some((p) => pathname.startsWith(p));
