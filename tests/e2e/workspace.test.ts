@@ -77,14 +77,14 @@ describe('job workspace in the browser', () => {
 	test('a new job needs a name, keeps what was typed, and opens its page once created', async () => {
 		await waitForIslands(page);
 		await page.getByRole('button', { name: 'Start a new job' }).click();
-		await page.getByLabel('Property address').fill('417 Fenwick Reach Road, Quillmere');
+		await page.getByLabel('Property address').fill('23 Tamsin Court, Quillmere');
 		await page.getByRole('button', { name: 'Create the job' }).click();
 		await expect(page.getByText('Give the job a name.').isVisible()).resolves.toBe(true);
 		await expect(page.getByLabel('Property address').inputValue()).resolves.toBe(
-			'417 Fenwick Reach Road, Quillmere',
+			'23 Tamsin Court, Quillmere',
 		);
 		await page.getByLabel('Job name').fill(JOB_NAME);
-		await page.getByLabel('Homeowner', { exact: true }).fill('Odalys Penhallow');
+		await page.getByLabel('Homeowner', { exact: true }).fill('Bram Okonjo-Teale');
 		await shot(page, 'workspace-new-job-form');
 		await page.getByRole('button', { name: 'Create the job' }).click();
 		await page.waitForURL(/\/contractor\/jobs\/[0-9a-f-]{36}/);

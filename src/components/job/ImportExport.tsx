@@ -7,10 +7,12 @@ interface Props {
 	/** The job to export, when on a job page. */
 	jobId?: string;
 	firms: { id: string; name: string }[];
+	/** Told about a job just imported (the jobs list shows it at once). */
+	onImported?: (job: JobRecord) => void;
 }
 
 /** Export a job as a JSON job document; import one as a new job (with every validation message and its path). */
-export default function ImportExport({ jobId, firms }: Props) {
+export default function ImportExport({ jobId, firms, onImported }: Props) {
 	const fileRef = useRef<HTMLInputElement>(null);
 	const [firmId, setFirmId] = useState(firms[0]?.id ?? '');
 	const [busy, setBusy] = useState(false);
@@ -46,6 +48,7 @@ export default function ImportExport({ jobId, firms }: Props) {
 				},
 			);
 			setImported(res);
+			onImported?.(res.job);
 		} catch (err) {
 			const list =
 				err instanceof ApiError

@@ -4,6 +4,7 @@ import type { JobRecord } from '../../lib/client/job-tree';
 import { useResource } from '../../lib/client/use-resource';
 import { JOB_SORTS, JOB_STATUSES, JOB_STATUS_LABELS } from '../../lib/schemas/job';
 import LoadState from '../ui/LoadState';
+import ImportExport from '../job/ImportExport';
 import NewJobForm from './NewJobForm';
 import StatusTag from './StatusTag';
 
@@ -78,6 +79,10 @@ export default function JobsList({ firms }: Props) {
 				)}
 			</section>
 
+			<section className="panel-card" aria-label="Import a job file">
+				<ImportExport firms={firms} onImported={() => jobs.reload()} />
+			</section>
+
 			<section className="panel-card" aria-labelledby="jobs-heading">
 				<h2 id="jobs-heading" className="text-lg font-bold text-ink-950">
 					Jobs
@@ -148,7 +153,7 @@ export default function JobsList({ firms }: Props) {
 							<p className="rounded-md bg-ink-50 p-4 text-ink-600">
 								{debouncedQ || status
 									? 'No job matches. Clear the search or the status filter.'
-									: 'No jobs yet. Start one above, or import a job file from a job page.'}
+									: 'No jobs yet. Start one above, or import a job file.'}
 							</p>
 						)}
 						{jobs.data && jobs.data.items.length > 0 && (

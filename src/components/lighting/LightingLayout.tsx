@@ -245,7 +245,7 @@ export default function LightingLayout({ jobId }: Props) {
 					<div className="space-y-4">
 						<section className="panel-card" aria-labelledby="drawing-h">
 							<h2 id="drawing-h" className="font-bold text-ink-950">
-								Layout{' '}
+								Layout
 								{result.ok &&
 									`: ${result.layout.count} fixtures (${result.layout.rows} × ${result.layout.columns})`}
 							</h2>

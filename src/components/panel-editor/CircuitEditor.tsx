@@ -1,7 +1,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useEffect, useRef, useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
-import { messageOf } from '../../lib/client/api-client';
+import { Controller, useForm, type FieldPath } from 'react-hook-form';
+import { ApiError, messageOf } from '../../lib/client/api-client';
 import type { RoomRecord } from '../../lib/client/job-tree';
 import type { CircuitResult } from '../../lib/electrical';
 import { num } from '../../lib/electrical/format';
@@ -28,6 +28,21 @@ const FIELDS = [
 	'afciAtDevice',
 	'loads',
 ] as const;
+// The load fields the loads table shows a message beside; other load messages go to the form's notice.
+const LOAD_FIELDS_SHOWN = new Set(['description', 'quantity', 'va', 'watts', 'hp', 'voltage']);
+
+/** Splits a server error into the messages for load rows (`loads.2.load.va`) and the rest. */
+function splitLoadErrors(err: unknown): { loadErrors: [string, string][]; other: unknown } {
+	if (!(err instanceof ApiError)) return { loadErrors: [], other: err };
+	const loadErrors: [string, string][] = [];
+	const fields: Record<string, string[]> = {};
+	for (const [path, msgs] of Object.entries(err.fields)) {
+		if (/^loads\.\d+\.load\./.test(path) && msgs[0]) loadErrors.push([path, msgs[0]]);
+		else fields[path] = msgs;
+	}
+	return { loadErrors, other: new ApiError(err.status, err.code, err.message, fields, err.current) };
+}
+
 const BREAKER_LABELS: Record<string, string> = {
 	standard: 'Standard',
 	afci: 'AFCI',
@@ -44,6 +59,8 @@ interface Props {
 	result: CircuitResult | null;
 	conflict: React.ReactNode;
 	onDraft: (values: CircuitFormInput) => void;
+	/** Told whether the form differs from the saved circuit, so that leaving it can ask first. */
+	onDirty?: (dirty: boolean) => void;
 	onSave: (values: CircuitFormValues) => Promise<void>;
 	onDelete?: () => void;
 	onClose: () => void;
@@ -59,6 +76,7 @@ export default function CircuitEditor({
 	result,
 	conflict,
 	onDraft,
+	onDirty,
 	onSave,
 	onDelete,
 	onClose,
@@ -79,13 +97,15 @@ export default function CircuitEditor({
 		headingRef.current?.focus();
 	}, []);
 	useEffect(() => {
+		onDirty?.(isDirty);
+	}, [isDirty, onDirty]);
+	useEffect(() => {
 		onDraft(form.getValues());
 		const sub = watch((values) => {
 			setSaved(false);
 			onDraft(values as CircuitFormInput);
 		});
 		return () => sub.unsubscribe();
-		// eslint-disable-next-line react-hooks/exhaustive-deps
 	}, [watch]);
 
 	const submit = handleSubmit(async (values) => {
@@ -94,8 +114,17 @@ export default function CircuitEditor({
 			await onSave(values);
 			setSaved(true);
 		} catch (err) {
-			const rest = applyServerErrors(err, setError, FIELDS);
-			setMessage([messageOf(err), ...rest].join(' '));
+			const { loadErrors, other } = splitLoadErrors(err);
+			for (const [path, msg] of loadErrors)
+				setError(path as FieldPath<CircuitFormInput>, { type: 'server', message: msg });
+			const rest = applyServerErrors(other, setError, FIELDS);
+			const unshown = loadErrors
+				.filter(([path]) => !LOAD_FIELDS_SHOWN.has(path.split('.')[3] ?? ''))
+				.map(
+					([path, msg]) =>
+						`Load ${Number(path.split('.')[1]) + 1} (${path.split('.').slice(3).join('.')}): ${msg}`,
+				);
+			setMessage([messageOf(err), ...rest, ...unshown].join(' '));
 		}
 	});
 

@@ -9,7 +9,7 @@ import {
 	type UseFormWatch,
 } from 'react-hook-form';
 import type { RoomRecord } from '../../lib/client/job-tree';
-import { LOAD_KINDS } from '../../lib/electrical/schema';
+import type { LOAD_KINDS } from '../../lib/electrical/schema';
 import { MOTOR_HP } from '../../lib/electrical/tables';
 import { asNumber, asNumberOrNull } from '../jobs/form-helpers';
 import type { CircuitFormInput, LoadRowInput } from './editor-schema';
@@ -174,123 +174,140 @@ function LoadRow({
 				{m}
 			</p>
 		) : null;
+	const voltageError = msg('voltage');
 	return (
-		<tr data-load-row={i}>
-			<td className={cell}>
-				<select
-					aria-label={`Load ${i + 1} kind`}
-					{...register(`loads.${i}.load.kind`)}
-					className={`${input} min-w-[9.5rem]`}
-				>
-					{Object.entries(LOAD_KIND_LABELS).map(([k, label]) => (
-						<option key={k} value={k}>
-							{label}
-						</option>
-					))}
-				</select>
-			</td>
-			<td className={cell}>
-				<input
-					aria-label={`Load ${i + 1} description`}
-					{...register(`loads.${i}.load.description`)}
-					className={`${input} min-w-[8rem]`}
-				/>
-				{err(msg('description'))}
-			</td>
-			<td className={cell}>
-				<input
-					aria-label={`Load ${i + 1} quantity`}
-					inputMode="numeric"
-					{...register(`loads.${i}.load.quantity`, { setValueAs: asNumber })}
-					aria-invalid={msg('quantity') ? true : undefined}
-					className={`${input} w-16`}
-				/>
-				{err(msg('quantity'))}
-			</td>
-			<td className={cell}>
-				<div className="flex gap-1">
-					{unit === 'hp' ? (
-						<select
-							aria-label={`Load ${i + 1} horsepower`}
-							{...register(`loads.${i}.load.hp`)}
-							className={`${input} w-24`}
-						>
-							{MOTOR_HP.map((h) => (
-								<option key={h} value={h}>
-									{h}
-								</option>
-							))}
-						</select>
-					) : (
-						<input
-							aria-label={`Load ${i + 1} rating in ${unit === 'va' ? 'volt-amperes' : 'watts'}`}
-							inputMode="decimal"
-							{...register(`loads.${i}.load.${unit}`, { setValueAs: asNumberOrNull })}
-							aria-invalid={ratingError ? true : undefined}
-							className={`${input} w-24`}
-						/>
-					)}
+		<>
+			<tr data-load-row={i}>
+				<td className={cell}>
 					<select
-						aria-label={`Load ${i + 1} rating unit`}
-						value={unit}
-						onChange={(ev) => changeUnit(ev.target.value as Unit)}
-						className={`${input} w-[4.5rem]`}
+						aria-label={`Load ${i + 1} kind`}
+						{...register(`loads.${i}.load.kind`)}
+						className={`${input} min-w-[9.5rem]`}
 					>
-						<option value="va">VA</option>
-						<option value="watts">W</option>
-						<option value="hp">hp</option>
+						{Object.entries(LOAD_KIND_LABELS).map(([k, label]) => (
+							<option key={k} value={k}>
+								{label}
+							</option>
+						))}
 					</select>
-				</div>
-				{err(ratingError)}
-			</td>
-			<td className={cell}>
-				<select
-					aria-label={`Load ${i + 1} voltage`}
-					{...register(`loads.${i}.load.voltage`, { setValueAs: asNumber })}
-					className={`${input} w-20`}
-				>
-					{[120, 208, 240].map((v) => (
-						<option key={v} value={v}>
-							{v} V
-						</option>
-					))}
-				</select>
-				{err(msg('voltage'))}
-			</td>
-			<td className={`${cell} text-center`}>
-				<input
-					type="checkbox"
-					aria-label={`Load ${i + 1} continuous (3 hours or more)`}
-					{...register(`loads.${i}.load.continuous`)}
-					className="mt-2 h-4 w-4 accent-copper-600"
-				/>
-			</td>
-			<td className={cell}>
-				<Controller
-					control={control}
-					name={`loads.${i}.load.roomIds`}
-					render={({ field }) => (
-						<RoomPicker
-							id={`${p}-rooms`}
-							legend={`Load ${i + 1} rooms served`}
-							rooms={rooms}
-							value={field.value ?? []}
-							onChange={field.onChange}
-							compact
-						/>
-					)}
-				/>
-			</td>
-			<td className={cell}>
-				<button
-					type="button"
-					className="btn-quiet px-2 py-1 text-xs"
-					onClick={onRemove}
-					aria-label={`Remove load ${i + 1}`}
-				>
-					Remove
-				</button>
-			</td>
-		</tr>
+				</td>
+				<td className={cell}>
+					<input
+						aria-label={`Load ${i + 1} description`}
+						{...register(`loads.${i}.load.description`)}
+						className={`${input} min-w-[8rem]`}
+					/>
+					{err(msg('description'))}
+				</td>
+				<td className={cell}>
+					<input
+						aria-label={`Load ${i + 1} quantity`}
+						inputMode="numeric"
+						{...register(`loads.${i}.load.quantity`, { setValueAs: asNumber })}
+						aria-invalid={msg('quantity') ? true : undefined}
+						className={`${input} w-16`}
+					/>
+					{err(msg('quantity'))}
+				</td>
+				<td className={cell}>
+					<div className="flex gap-1">
+						{unit === 'hp' ? (
+							<select
+								aria-label={`Load ${i + 1} horsepower`}
+								{...register(`loads.${i}.load.hp`)}
+								className={`${input} w-24`}
+							>
+								{MOTOR_HP.map((h) => (
+									<option key={h} value={h}>
+										{h}
+									</option>
+								))}
+							</select>
+						) : (
+							<input
+								aria-label={`Load ${i + 1} rating in ${unit === 'va' ? 'volt-amperes' : 'watts'}`}
+								inputMode="decimal"
+								{...register(`loads.${i}.load.${unit}`, { setValueAs: asNumberOrNull })}
+								aria-invalid={ratingError ? true : undefined}
+								className={`${input} w-24`}
+							/>
+						)}
+						<select
+							aria-label={`Load ${i + 1} rating unit`}
+							value={unit}
+							onChange={(ev) => changeUnit(ev.target.value as Unit)}
+							className={`${input} w-[4.5rem]`}
+						>
+							<option value="va">VA</option>
+							<option value="watts">W</option>
+							<option value="hp">hp</option>
+						</select>
+					</div>
+					{err(ratingError)}
+				</td>
+				<td className={cell}>
+					<select
+						aria-label={`Load ${i + 1} voltage`}
+						{...register(`loads.${i}.load.voltage`, { setValueAs: asNumber })}
+						aria-invalid={voltageError ? true : undefined}
+						aria-describedby={voltageError ? `${p}-voltage-error` : undefined}
+						className={`${input} w-20`}
+					>
+						{[120, 208, 240].map((v) => (
+							<option key={v} value={v}>
+								{v} V
+							</option>
+						))}
+					</select>
+				</td>
+				<td className={`${cell} text-center`}>
+					<input
+						type="checkbox"
+						aria-label={`Load ${i + 1} continuous (3 hours or more)`}
+						{...register(`loads.${i}.load.continuous`)}
+						className="mt-2 h-4 w-4 accent-copper-600"
+					/>
+				</td>
+				<td className={cell}>
+					<Controller
+						control={control}
+						name={`loads.${i}.load.roomIds`}
+						render={({ field }) => (
+							<RoomPicker
+								id={`${p}-rooms`}
+								legend={`Load ${i + 1} rooms served`}
+								rooms={rooms}
+								value={field.value ?? []}
+								onChange={field.onChange}
+								compact
+							/>
+						)}
+					/>
+				</td>
+				<td className={cell}>
+					<button
+						type="button"
+						className="btn-quiet px-2 py-1 text-xs"
+						onClick={onRemove}
+						aria-label={`Remove load ${i + 1}`}
+					>
+						Remove
+					</button>
+				</td>
+			</tr>
+			{voltageError && (
+				<tr data-load-error={i}>
+					<td colSpan={8} className="px-2 pb-2">
+						<p
+							id={`${p}-voltage-error`}
+							role="alert"
+							className="field-error sticky left-2 max-w-[min(36rem,calc(100vw-5rem))] text-xs"
+						>
+							Load {i + 1} voltage: {voltageError}
+						</p>
+					</td>
+				</tr>
+			)}
+		</>
 	);
 }

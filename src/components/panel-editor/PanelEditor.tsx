@@ -77,6 +77,25 @@ function blankCircuit(position: number): CircuitFormInput {
 
 const DRAFT_ID = '__draft__';
 
+/** The server names a load's field `loads.2.va`; the form holds it at `loads.2.load.va`. */
+function formPaths(fields: Record<string, string[]>): Record<string, string[]> {
+	return Object.fromEntries(
+		Object.entries(fields).map(([k, v]) => [k.replace(/^loads\.(\d+)\.(?!load\.)/, 'loads.$1.load.'), v]),
+	);
+}
+
+/** What a 409 says the circuit holds now, with its loads in a line, for the conflict notice. */
+function conflictView(current: unknown): Record<string, unknown> {
+	const { circuit, loads } = current as { circuit?: CircuitRecord; loads?: LoadRecord[] };
+	if (!circuit) return current as Record<string, unknown>;
+	const rating = (l: LoadRecord) =>
+		l.va !== null ? `${num(l.va)} VA` : l.watts !== null ? `${num(l.watts)} W` : `${l.hp} hp`;
+	return {
+		...circuit,
+		loadsNow: (loads ?? []).map((l) => `${l.quantity} × ${l.description || l.kind} ${rating(l)}`).join('; '),
+	};
+}
+
 /**
  * The panelboard editor: the breaker positions, the selected circuit's form, and the panel's leg
  * totals and headroom, recomputed by the engine in the browser as you type.
@@ -94,6 +113,8 @@ export default function PanelEditor({ jobId, panelId, initialCircuitId }: Props)
 	const [deleting, setDeleting] = useState(false);
 	const [busy, setBusy] = useState(false);
 	const [editorKey, setEditorKey] = useState(0);
+	const [dirty, setDirty] = useState(false);
+	const [leavingFor, setLeavingFor] = useState<{ position: number | null } | null>(null);
 
 	if (t && !selectedFromUrl) {
 		setSelectedFromUrl(true);
@@ -142,6 +163,12 @@ export default function PanelEditor({ jobId, panelId, initialCircuitId }: Props)
 		};
 	}, [t, panel, draft, selected, current, jobId, panelId]);
 	const engine = useMemo(() => (preview ? computeTree(preview) : null), [preview]);
+	// Engine messages name records by id; show circuits by position and label instead.
+	const named = (text: string) =>
+		text.replace(/"([0-9a-f-]{36}|__draft__)"/g, (all, id: string) => {
+			const c = preview?.circuits.find((x) => x.id === id);
+			return c ? `${c.position} (“${c.label || 'unlabelled'}”)` : all;
+		});
 	const results = engine?.ok ? engine.results : null;
 	const panelResult = results?.panels.find((p) => p.panelId === panelId) ?? null;
 
@@ -160,101 +187,71 @@ export default function PanelEditor({ jobId, panelId, initialCircuitId }: Props)
 			};
 		});
 
-	const select = useCallback((p: number) => {
+	const open = useCallback((p: number | null) => {
 		setSelected(p);
 		setDraft(null);
+		setDirty(false);
 		setConflict(null);
 		setNotice(null);
 		setMoveTo('');
 		setEditorKey((k) => k + 1);
 	}, []);
 
+	// Leaving a circuit with unsaved edits (another position, or Close) asks first.
+	const select = (p: number | null) => {
+		if (dirty && p === selected) return;
+		if (dirty) setLeavingFor({ position: p });
+		else open(p);
+	};
+
 	const save = async (values: CircuitFormValues) => {
 		if (!t) return;
 		setConflict(null);
 		const { loads: rows, ...circuitValues } = values;
-		let circuit: CircuitRecord;
+		const loads = rows.map((r) => (r.record ? { ...r.load, ...r.record } : r.load));
+		let saved: { circuit: CircuitRecord; loads: LoadRecord[] };
 		try {
 			if (current) {
+				// Position and poles change only through "Move the breaker".
 				const { position: _p, poles: _n, ...rest } = circuitValues;
-				circuit = (
-					await api<{ circuit: CircuitRecord }>(`/api/circuits/${current.id}`, {
-						method: 'PATCH',
-						body: { ...rest, version: current.version },
-					})
-				).circuit;
+				const kept = new Set(rows.map((r) => r.record?.id));
+				const deleteLoads = t.loads
+					.filter((l) => l.circuitId === current.id && !kept.has(l.id))
+					.map((l) => ({ id: l.id, version: l.version }));
+				saved = await api(`/api/circuits/${current.id}/with-loads`, {
+					method: 'PUT',
+					body: { ...rest, version: current.version, loads, deleteLoads },
+				});
 			} else {
-				circuit = (
-					await api<{ circuit: CircuitRecord }>(`/api/panels/${panelId}/circuits`, {
-						method: 'POST',
-						body: circuitValues,
-					})
-				).circuit;
+				saved = await api(`/api/panels/${panelId}/circuits`, {
+					method: 'POST',
+					body: { ...circuitValues, loads },
+				});
 			}
 		} catch (err) {
 			if (err instanceof ApiError && err.status === 409 && err.current) {
-				setConflict(err.current as Record<string, unknown>);
+				setConflict(conflictView(err.current));
 				throw new ApiError(409, 'conflict', 'Nothing was saved.');
 			}
+			if (err instanceof ApiError && err.status === 400)
+				throw new ApiError(400, err.code, err.message, formPaths(err.fields));
 			throw err;
 		}
-		// Loads: write the changed and new rows, delete the removed ones.
-		const before = t.loads.filter((l) => l.circuitId === circuit.id);
-		const kept = new Set(rows.map((r) => r.record?.id).filter(Boolean));
-		let loads = t.loads.filter((l) => l.circuitId !== circuit.id);
-		const written: LoadRecord[] = [];
-		try {
-			for (const old of before)
-				if (!kept.has(old.id))
-					await api(`/api/loads/${old.id}`, { method: 'DELETE', body: { version: old.version } });
-			for (const row of rows) {
-				const old = before.find((l) => l.id === row.record?.id);
-				if (old) {
-					const same =
-						JSON.stringify(formValuesOf({ ...circuit }, [old]).loads[0]?.load) ===
-						JSON.stringify({
-							...row.load,
-							hp: row.load.hp ?? null,
-							va: row.load.va ?? null,
-							watts: row.load.watts ?? null,
-						});
-					written.push(
-						same
-							? old
-							: (
-									await api<{ load: LoadRecord }>(`/api/loads/${old.id}`, {
-										method: 'PATCH',
-										body: { ...row.load, version: old.version },
-									})
-								).load,
-					);
-				} else {
-					written.push(
-						(
-							await api<{ load: LoadRecord }>(`/api/circuits/${circuit.id}/loads`, {
-								method: 'POST',
-								body: row.load,
-							})
-						).load,
-					);
-				}
-			}
-		} finally {
-			loads = [...loads, ...written];
-			tree.setData((prev) => {
-				const p = prev as JobTree;
-				const exists = p.circuits.some((c) => c.id === circuit.id);
-				return {
-					...p,
-					circuits: exists
-						? p.circuits.map((c) => (c.id === circuit.id ? circuit : c))
-						: [...p.circuits, circuit],
-					loads,
-				};
-			});
-		}
+		const { circuit } = saved;
+		tree.setData((prev) => {
+			const p = prev as JobTree;
+			const exists = p.circuits.some((c) => c.id === circuit.id);
+			return {
+				...p,
+				circuits: exists
+					? p.circuits.map((c) => (c.id === circuit.id ? circuit : c))
+					: [...p.circuits, circuit],
+				loads: [...p.loads.filter((l) => l.circuitId !== circuit.id), ...saved.loads],
+			};
+		});
 		setSelected(circuit.position);
 		setDraft(null);
+		setDirty(false);
 		setEditorKey((k) => k + 1);
 		setNotice(`Saved ${circuit.label || 'the circuit'}.`);
 	};
@@ -274,6 +271,7 @@ export default function PanelEditor({ jobId, panelId, initialCircuitId }: Props)
 			}));
 			setSelected(circuit.position);
 			setDraft(null);
+			setDirty(false);
 			setMoveTo('');
 			setEditorKey((k) => k + 1);
 			setNotice(
@@ -306,6 +304,7 @@ export default function PanelEditor({ jobId, panelId, initialCircuitId }: Props)
 			setNotice(`Deleted ${current.label || 'the breaker'}.`);
 			setSelected(null);
 			setDraft(null);
+			setDirty(false);
 		} catch (err) {
 			setNotice(messageOf(err));
 		} finally {
@@ -376,7 +375,7 @@ export default function PanelEditor({ jobId, panelId, initialCircuitId }: Props)
 					{notice && <Notice tone="ok">{notice}</Notice>}
 					{engine && !engine.ok && (
 						<Notice tone="info">
-							The checks run once the job is complete enough: {engine.errors.join('; ')}
+							The checks run once the job is complete enough: {engine.errors.map(named).join('; ')}
 						</Notice>
 					)}
 					<div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(22rem,28rem)_1fr]">
@@ -413,10 +412,8 @@ export default function PanelEditor({ jobId, panelId, initialCircuitId }: Props)
 									result={results?.circuits.find((r) => r.circuitId === (current?.id ?? DRAFT_ID)) ?? null}
 									onDraft={setDraft}
 									onSave={save}
-									onClose={() => {
-										setSelected(null);
-										setDraft(null);
-									}}
+									onClose={() => select(null)}
+									onDirty={setDirty}
 									onDelete={current ? () => setDeleting(true) : undefined}
 									conflict={
 										conflict && (
@@ -429,11 +426,13 @@ export default function PanelEditor({ jobId, panelId, initialCircuitId }: Props)
 													['position', 'Position'],
 													['lengthFt', 'Length (ft)'],
 													['breakerType', 'Type'],
+													['loadsNow', 'Loads'],
 												]}
 												onReload={async () => {
 													setConflict(null);
 													await tree.reload();
 													setDraft(null);
+													setDirty(false);
 													setEditorKey((k) => k + 1);
 												}}
 											/>
@@ -460,9 +459,19 @@ export default function PanelEditor({ jobId, panelId, initialCircuitId }: Props)
 														))}
 													</select>
 												</div>
-												<button type="button" className="btn-quiet" disabled={!moveTo || busy} onClick={move}>
+												<button
+													type="button"
+													className="btn-quiet"
+													disabled={!moveTo || busy || dirty}
+													onClick={move}
+												>
 													Move the breaker
 												</button>
+												{dirty && (
+													<p className="w-full text-xs text-ink-500">
+														Save or discard your changes to the circuit before moving the breaker.
+													</p>
+												)}
 												{moveError && <p className="field-error w-full">{moveError}</p>}
 											</div>
 										)
@@ -471,6 +480,27 @@ export default function PanelEditor({ jobId, panelId, initialCircuitId }: Props)
 							)}
 						</div>
 					</div>
+					<ConfirmDialog
+						open={leavingFor !== null}
+						title={
+							current
+								? `Discard the unsaved changes to circuit ${positionsTaken(current.position, current.poles).join(' & ')}?`
+								: `Discard the new breaker at position ${selected}?`
+						}
+						body={
+							leavingFor?.position == null
+								? 'Your changes to this circuit and its loads have not been saved. Close it and lose them?'
+								: `Your changes to this circuit and its loads have not been saved. Open position ${leavingFor.position} and lose them?`
+						}
+						confirmLabel="Discard the changes"
+						cancelLabel="Keep editing"
+						onConfirm={() => {
+							const to = leavingFor?.position ?? null;
+							setLeavingFor(null);
+							open(to);
+						}}
+						onCancel={() => setLeavingFor(null)}
+					/>
 					<ConfirmDialog
 						open={deleting}
 						title={`Delete ${current?.label || 'this breaker'}?`}

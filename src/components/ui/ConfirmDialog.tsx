@@ -1,10 +1,11 @@
-import { useEffect, useRef } from 'react';
+import { useEffect, useId, useRef } from 'react';
 
 interface Props {
 	open: boolean;
 	title: string;
 	body: string;
 	confirmLabel: string;
+	cancelLabel?: string;
 	busy?: boolean;
 	onConfirm: () => void;
 	onCancel: () => void;
@@ -16,11 +17,13 @@ export default function ConfirmDialog({
 	title,
 	body,
 	confirmLabel,
+	cancelLabel = 'Cancel',
 	busy = false,
 	onConfirm,
 	onCancel,
 }: Props) {
 	const ref = useRef<HTMLDialogElement>(null);
+	const titleId = useId();
 	useEffect(() => {
 		const d = ref.current;
 		if (!d) return;
@@ -34,17 +37,17 @@ export default function ConfirmDialog({
 				e.preventDefault();
 				onCancel();
 			}}
-			aria-labelledby="confirm-title"
+			aria-labelledby={titleId}
 			className="w-[min(28rem,92vw)] rounded-lg border border-ink-200 p-0 shadow-xl backdrop:bg-ink-950/40"
 		>
 			<div className="p-5">
-				<h2 id="confirm-title" className="text-lg font-bold text-ink-950">
+				<h2 id={titleId} className="text-lg font-bold text-ink-950">
 					{title}
 				</h2>
 				<p className="mt-2 text-ink-700">{body}</p>
 				<div className="mt-5 flex justify-end gap-2">
 					<button type="button" className="btn-quiet" onClick={onCancel} autoFocus>
-						Cancel
+						{cancelLabel}
 					</button>
 					<button
 						type="button"

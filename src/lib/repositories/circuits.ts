@@ -1,7 +1,7 @@
 import type { Knex } from 'knex';
 import { positionsTaken } from '../electrical/positions';
 import { AppError, errors } from '../errors';
-import type { CircuitInput, CircuitPatch } from '../schemas/circuit';
+import type { CircuitPatch } from '../schemas/circuit';
 import { recordAudit } from './audit';
 import { consistencyGuard } from './consistency';
 import { assertRoomsOfJob, setRoomLinks } from './jobs';
@@ -95,12 +95,14 @@ export async function assertPositionFree(
 	}
 }
 
-async function lockPanel(trx: Knex.Transaction, panelId: string): Promise<PanelRecord | null> {
+/** Reads a panel and locks its row for the rest of the transaction (positions are checked under this lock). */
+export async function lockPanel(trx: Knex.Transaction, panelId: string): Promise<PanelRecord | null> {
 	const row = await trx('panels').where({ id: panelId }).forUpdate().first();
 	return row ? panelFromRow(row) : null;
 }
 
-async function assertMultiwirePartner(
+/** A multiwire partner must be a circuit of the same job (400 on `multiwireWith` otherwise). */
+export async function assertMultiwirePartner(
 	trx: Knex.Transaction,
 	jobId: string,
 	partner: string | null,
@@ -114,39 +116,6 @@ async function assertMultiwirePartner(
 		throw errors.invalid('Some fields need attention.', {
 			multiwireWith: ['no circuit of this job has this id'],
 		});
-}
-
-/** Adds a breaker to a panel at a free position, with its rooms, and the audit row. */
-export async function createCircuit(
-	knex: Knex,
-	actor: Actor,
-	panelId: string,
-	input: CircuitInput,
-): Promise<CircuitRecord> {
-	return inTransaction(knex, async (trx) => {
-		const panel = await lockPanel(trx, panelId);
-		if (!panel) throw errors.notFound('panel');
-		await assertRoomsOfJob(trx, panel.jobId, input.roomIds);
-		await assertMultiwirePartner(trx, panel.jobId, input.multiwireWith);
-		await assertPositionFree(trx, panel, input.position, input.poles, null);
-		const guard = await consistencyGuard(trx, panel.jobId);
-		const [row] = await trx('circuits')
-			.insert({ panel_id: panelId, ...circuitToRow(input) })
-			.returning('id');
-		await setRoomLinks(trx, 'circuit_rooms', 'circuit_id', row.id, input.roomIds);
-		await guard.check(row.id);
-		const circuit = (await getCircuit(trx, row.id))!;
-		await recordAudit(trx, {
-			jobId: panel.jobId,
-			userId: actor.id,
-			entity: 'circuit',
-			entityId: circuit.id,
-			action: 'create',
-			before: null,
-			after: circuit,
-		});
-		return circuit;
-	});
 }
 
 /** Changes a circuit (position and poles included, checked like a move); a stale version is a 409. */

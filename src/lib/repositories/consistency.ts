@@ -82,20 +82,25 @@ async function problemsOf(knex: Knex, jobId: string): Promise<Problem[]> {
  * Keeps a job as consistent as the engine needs it. Call `before` ahead of a write and `check` after
  * it, inside the same transaction: a problem the write introduced (a load at 240 V on a 120 V circuit,
  * a subpanel fed from its own breaker, ...) rolls the write back with a 400 naming the field.
+ * `checkAll` does the same for a write of several records: `paths` maps each record's id to the
+ * prefix of its fields in the request (`''` for the record itself, `'loads.2.'` for a load of a batch).
  */
 export async function consistencyGuard(trx: Knex.Transaction, jobId: string) {
 	const before = new Set((await problemsOf(trx, jobId)).map((p) => p.key));
+	const checkAll = async (paths: ReadonlyMap<string, string>): Promise<void> => {
+		const fresh = (await problemsOf(trx, jobId)).filter((p) => !before.has(p.key));
+		if (fresh.length === 0) return;
+		const fields: Record<string, string[]> = {};
+		for (const p of fresh) {
+			const prefix = p.entityId === null ? undefined : paths.get(p.entityId);
+			const key = prefix === undefined ? '_' : p.field ? prefix + p.field : prefix.replace(/\.$/, '') || '_';
+			const text = prefix !== undefined || p.subject === null ? p.message : `${p.subject}: ${p.message}`;
+			(fields[key] ??= []).push(text);
+		}
+		throw errors.invalid(`This change was not saved: ${fresh[0]!.message}.`, fields);
+	};
 	return {
-		async check(entityId: string): Promise<void> {
-			const fresh = (await problemsOf(trx, jobId)).filter((p) => !before.has(p.key));
-			if (fresh.length === 0) return;
-			const fields: Record<string, string[]> = {};
-			for (const p of fresh) {
-				const key = p.entityId === entityId ? p.field || '_' : '_';
-				const text = p.entityId === entityId || p.subject === null ? p.message : `${p.subject}: ${p.message}`;
-				(fields[key] ??= []).push(text);
-			}
-			throw errors.invalid(`This change was not saved: ${fresh[0]!.message}.`, fields);
-		},
+		checkAll,
+		check: (entityId: string): Promise<void> => checkAll(new Map([[entityId, '']])),
 	};
 }

@@ -1,6 +1,6 @@
 import type { z } from 'zod';
 import { loadFieldsSchema } from '../electrical/schema';
-import { patchOf, roomIdsSchema } from './common';
+import { patchOf, roomIdsSchema, uuidSchema, versionSchema } from './common';
 
 const loadFields = loadFieldsSchema.omit({ id: true, circuitId: true }).extend({
 	roomIds: roomIdsSchema.default([]),
@@ -44,3 +44,22 @@ export type LoadInput = z.infer<typeof loadInputSchema>;
 /** A partial load; the merged record is checked with loadInputSchema before it is written. */
 export const loadPatchSchema = patchOf(loadFields);
 export type LoadPatch = z.infer<typeof loadPatchSchema>;
+
+/**
+ * One load of a circuit saved together with its loads: the whole load (checked like loadInputSchema),
+ * with the saved load's `id` and the `version` last read, or neither for a new load.
+ */
+export const circuitLoadItemSchema = loadFields
+	.extend({ id: uuidSchema.optional(), version: versionSchema.optional() })
+	.superRefine((load, ctx) => {
+		loadRules(load, ctx);
+		if (load.id !== undefined && load.version === undefined)
+			ctx.addIssue({
+				code: 'custom',
+				path: ['version'],
+				message: 'send the version you last read with the id of a saved load',
+			});
+		if (load.id === undefined && load.version !== undefined)
+			ctx.addIssue({ code: 'custom', path: ['id'], message: 'a version needs the id of the saved load' });
+	});
+export type CircuitLoadItem = z.infer<typeof circuitLoadItemSchema>;
