@@ -1,5 +1,7 @@
 import type { Knex } from 'knex';
 import { importJob } from '../src/lib/repositories/job-import.ts';
+import { createLightingLayout } from '../src/lib/repositories/lighting-layouts.ts';
+import { lightingLayoutInputSchema } from '../src/lib/schemas/lighting-layout.ts';
 import { DEMO_ACCOUNTS, DEMO_JURISDICTION, DEMO_FIRM } from './data/demo-accounts.ts';
 import { DEMO_JOB_DOCUMENT, DEMO_JOB_EXTRAS } from './data/demo-job.ts';
 
@@ -25,4 +27,23 @@ export async function seed(knex: Knex): Promise<void> {
 		permit_number: DEMO_JOB_EXTRAS.permitNumber,
 		status: DEMO_JOB_EXTRAS.status,
 	});
+	// The remodel's eight kitchen fixtures, kept as a layout so that the packet draws them to scale.
+	const kitchen = await knex('rooms').where({ job_id: job.id, name: 'Kitchen' }).first('id');
+	await createLightingLayout(
+		knex,
+		job.id,
+		owner.id,
+		lightingLayoutInputSchema.parse({
+			title: 'Kitchen recessed lights',
+			roomId: kitchen?.id ?? null,
+			input: {
+				lengthFt: 16,
+				widthFt: 14,
+				ceilingHeightFt: 9,
+				fixtureDiameterIn: 4,
+				spacing: { rule: 'count', rows: 2, columns: 4 },
+				joists: { direction: 'along-width', spacingIn: 16, firstOffsetIn: 16 },
+			},
+		}),
+	);
 }
