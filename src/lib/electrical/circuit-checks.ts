@@ -32,8 +32,8 @@ export interface CircuitLoadStats {
 	largestCordVA: number;
 	/** Every load is a motor, air conditioner or heat pump (240.4(G) applies). */
 	motorOrAcOnly: boolean;
-	/** Load voltages other than the circuit's (and other than 120 V). */
-	otherVoltages: Set<number>;
+	/** Load voltages other than the circuit's (and other than 120 V); null when there are none. */
+	otherVoltages: Set<number> | null;
 	/** Terms of the connected-load sum, for the working (first few only). */
 	terms: number[];
 	/** Nameplate kW of each household cooking appliance, when every load on the circuit is one. */
@@ -52,7 +52,7 @@ export function emptyStats(): CircuitLoadStats {
 		fastenedVA: 0,
 		largestCordVA: 0,
 		motorOrAcOnly: true,
-		otherVoltages: new Set(),
+		otherVoltages: null,
 		terms: [],
 		cookingKW: [],
 		onlyCooking: true,
@@ -108,6 +108,56 @@ export interface FeederLoad {
 
 const isStandardRating = (a: number) => (STANDARD_RATINGS_A as readonly number[]).includes(a);
 
+/** The rule labels checkCircuit writes, made once per edition. */
+function rulesOf(ed: Edition) {
+	return {
+		voltageDrop: section('voltageDrop', ed),
+		feederRating: section('feederRating', ed),
+		rangeBranch: sections(['rangeBranch', 'cooking'], ed),
+		continuousBreaker: sections(['continuousBreaker', 'continuousConductor'], ed),
+		continuousConductor: section('continuousConductor', ed),
+		motorConductor: sections(['continuousConductor', 'motorConductor'], ed),
+		standardRatings: section('standardRatings', ed),
+		ampacityTerminals: sections(['ampacityTable', 'terminals'], ed),
+		smallConductors: section('smallConductors', ed),
+		ampacityTable: section('ampacityTable', ed),
+		motorAcConductors: section('motorAcConductors', ed),
+		nextSizeUp: section('nextSizeUp', ed),
+		ampacityNextSize: sections(['ampacityTable', 'nextSizeUp'], ed),
+		multioutlet: section('multioutlet', ed),
+		fastenedInPlace: section('fastenedInPlace', ed),
+		cordAndPlug: section('cordAndPlug', ed),
+		circuitDirectory: section('circuitDirectory', ed),
+	};
+}
+const RULES = new Map<Edition, ReturnType<typeof rulesOf>>();
+function rulesFor(ed: Edition): ReturnType<typeof rulesOf> {
+	let r = RULES.get(ed);
+	if (!r) {
+		r = rulesOf(ed);
+		RULES.set(ed, r);
+	}
+	return r;
+}
+
+// Texts that depend on a few discrete inputs are kept and shared: most circuits of a job repeat them.
+// Keyed by a text and a number, so that finding one builds no key.
+const TEXTS = new Map<string, Map<number, string>>();
+function kept(key: string, n: number, make: () => string): string {
+	let byNumber = TEXTS.get(key);
+	if (byNumber === undefined) {
+		byNumber = new Map();
+		TEXTS.set(key, byNumber);
+	}
+	let t = byNumber.get(n);
+	if (t === undefined) {
+		t = make();
+		byNumber.set(n, t);
+	}
+	return t;
+}
+const EDITION_NUMBER: Record<Edition, number> = { '2017': 0, '2020': 1, '2023': 2 };
+
 /** A human name for a circuit in messages. */
 export function circuitName(c: Circuit): string {
 	return c.label.trim().length > 0
@@ -136,15 +186,19 @@ export function voltageDrop(
 	const mult = poles === 3 ? Math.sqrt(3) : 2;
 	const vd = (mult * k * amps * lengthFt) / cm;
 	const pct = volts > 0 ? (vd / volts) * 100 : 0;
-	const rule = section('voltageDrop', edition);
+	const rule = rulesFor(edition).voltageDrop;
 	const m = poles === 3 ? '√3' : '2';
+	const cable = kept(
+		conductor.size,
+		conductor.material === 'cu' ? 1 : 2,
+		() => `${num(cm)} cmil (${sizeLabel(conductor.size)} ${conductor.material === 'cu' ? 'Cu' : 'Al'})`,
+	);
 	return {
 		volts: fig(
 			roundTo(vd, 3),
 			'V',
 			rule,
-			() =>
-				`${m} × K ${num(k)} × ${q(amps, 'A')} × ${q(lengthFt, 'ft')} ÷ ${num(cm)} cmil (${sizeLabel(conductor.size)} ${conductor.material === 'cu' ? 'Cu' : 'Al'}) = ${q(vd, 'V', 3)}`,
+			() => `${m} × K ${num(k)} × ${q(amps, 'A')} × ${q(lengthFt, 'ft')} ÷ ${cable} = ${q(vd, 'V', 3)}`,
 		),
 		percent: fig(
 			roundTo(pct, 3),
@@ -164,19 +218,24 @@ export function checkCircuit(
 	feeder: FeederLoad | null,
 	legs: Leg[],
 	positions: number[],
+	name = circuitName(c),
 ): CircuitResult {
 	const ed = ctx.edition;
+	const R = rulesFor(ed);
 	const target = { kind: 'circuit', id: c.id } as const;
-	const name = circuitName(c);
 	const findings: Finding[] = [];
-	const v = circuitVoltage(c.poles, panel.voltageSystem);
-	const divisor = c.poles === 3 ? v * Math.sqrt(3) : v;
-	const divLabel = c.poles === 3 ? `(${v} V × √3)` : `${v} V`;
+	// Texts are written when first read; they use these values, not the document's objects.
+	const ratingA = c.ratingA;
+	const poles = c.poles;
+	const system = panel.voltageSystem;
+	const v = circuitVoltage(poles, system);
+	const divisor = poles === 3 ? v * Math.sqrt(3) : v;
+	const divLabel = poles === 3 ? `(${v} V × √3)` : `${v} V`;
 	const voltage = fig(
 		v,
 		'V',
 		'nominal system voltage',
-		() => `${c.poles}-pole breaker in a ${panel.voltageSystem} panelboard → ${v} V`,
+		kept(system, 10 + poles, () => `${poles}-pole breaker in a ${system} panelboard → ${v} V`),
 	);
 
 	const connected = feeder ? feeder.connectedVA : stats.connectedVA;
@@ -206,7 +265,7 @@ export function checkCircuit(
 		breakerLoadA = fig(
 			roundTo(breakerLoad, 3),
 			'A',
-			section('feederRating', ed),
+			R.feederRating,
 			() =>
 				`calculated load of panel ${feeder.panelName} ${q(feeder.calculatedVA, 'VA')} ÷ ${divLabel} = ${q(breakerLoad, 'A')}`,
 		);
@@ -219,80 +278,96 @@ export function checkCircuit(
 		breakerLoadA = fig(
 			roundTo(breakerLoad, 3),
 			'A',
-			sections(['rangeBranch', 'cooking'], ed),
+			R.rangeBranch,
 			() => `${d.working}; ${q(d.va, 'VA')} ÷ ${divLabel} = ${q(breakerLoad, 'A')}`,
 		);
 		conductorLoad = breakerLoad;
 		conductorLoadA = breakerLoadA;
 	} else {
-		const nonc = stats.connectedVA - stats.continuousVA;
-		const va = nonc + 1.25 * stats.continuousVA;
-		breakerLoad = va / divisor;
-		breakerLoadA = fig(
-			roundTo(breakerLoad, 3),
-			'A',
-			sections(['continuousBreaker', 'continuousConductor'], ed),
-			() =>
-				stats.continuousVA > 0
-					? `noncontinuous ${q(nonc, 'VA')} + 125 % × continuous ${q(stats.continuousVA, 'VA')} = ${q(va, 'VA')} ÷ ${divLabel} = ${q(breakerLoad, 'A')}`
-					: `${q(va, 'VA')} noncontinuous ÷ ${divLabel} = ${q(breakerLoad, 'A')}`,
+		const continuousVA = stats.continuousVA;
+		const largestMotorVA = stats.largestMotorVA;
+		const nonc = stats.connectedVA - continuousVA;
+		const va = nonc + 1.25 * continuousVA;
+		const load = va / divisor;
+		breakerLoad = load;
+		const breakerFigure = fig(roundTo(load, 3), 'A', R.continuousBreaker, () =>
+			continuousVA > 0
+				? `noncontinuous ${q(nonc, 'VA')} + 125 % × continuous ${q(continuousVA, 'VA')} = ${q(va, 'VA')} ÷ ${divLabel} = ${q(load, 'A')}`
+				: `${q(va, 'VA')} noncontinuous ÷ ${divLabel} = ${q(load, 'A')}`,
 		);
-		conductorLoad = breakerLoad + (0.25 * stats.largestMotorVA) / divisor;
+		breakerLoadA = breakerFigure;
+		const withMotor = load + (0.25 * largestMotorVA) / divisor;
+		conductorLoad = withMotor;
 		conductorLoadA =
-			stats.largestMotorVA > 0
+			largestMotorVA > 0
 				? fig(
-						roundTo(conductorLoad, 3),
+						roundTo(withMotor, 3),
 						'A',
-						sections(['continuousConductor', 'motorConductor'], ed),
+						R.motorConductor,
 						() =>
-							`${q(breakerLoad, 'A')} + 25 % × largest motor ${q(stats.largestMotorVA / divisor, 'A')} = ${q(conductorLoad, 'A')}`,
+							`${q(load, 'A')} + 25 % × largest motor ${q(largestMotorVA / divisor, 'A')} = ${q(withMotor, 'A')}`,
 					)
-				: { ...breakerLoadA, rule: section('continuousConductor', ed) };
+				: fig(breakerFigure.value, breakerFigure.unit, R.continuousConductor, () => breakerFigure.working);
 	}
 
+	const breakerType = c.breakerType;
 	const breakerA = fig(
-		c.ratingA,
+		ratingA,
 		'A',
-		section('standardRatings', ed),
-		() =>
-			`${c.ratingA} A ${c.poles}-pole ${c.breakerType === 'standard' ? '' : c.breakerType.toUpperCase() + ' '}breaker`,
+		R.standardRatings,
+		kept(
+			breakerType,
+			ratingA * 10 + poles,
+			() =>
+				`${ratingA} A ${poles}-pole ${breakerType === 'standard' ? '' : breakerType.toUpperCase() + ' '}breaker`,
+		),
 	);
 
 	// Conductor ampacity at the lower of insulation and terminal temperature (110.14(C)).
-	const column = Math.min(c.conductor.insulationC, ctx.terminalC) as TemperatureC;
-	const amp = tableAmpacity(c.conductor.size, c.conductor.material, column, ed);
-	const wire = `${sizeLabel(c.conductor.size)} ${c.conductor.material === 'cu' ? 'copper' : 'aluminum'}`;
+	const { size, material, insulationC } = c.conductor;
+	const terminalC = ctx.terminalC;
+	const column = Math.min(insulationC, terminalC) as TemperatureC;
+	const amp = tableAmpacity(size, material, column, ed);
+	const wire = kept(
+		size,
+		material === 'cu' ? 3 : 4,
+		() => `${sizeLabel(size)} ${material === 'cu' ? 'copper' : 'aluminum'}`,
+	);
 	const conductorAmpacityA =
 		amp === null
 			? null
 			: fig(
 					amp,
 					'A',
-					sections(['ampacityTable', 'terminals'], ed),
-					() =>
-						`${wire}, ${column} °C column (insulation ${c.conductor.insulationC} °C, terminals ${ctx.terminalC} °C: the lower governs) → ${q(amp, 'A')}`,
+					R.ampacityTerminals,
+					kept(
+						wire,
+						insulationC * 10_000 + terminalC * 10 + EDITION_NUMBER[ed],
+						() =>
+							`${wire}, ${column} °C column (insulation ${insulationC} °C, terminals ${terminalC} °C: the lower governs) → ${q(amp, 'A')}`,
+					),
 				);
-	const limit = smallConductorLimitA(c.conductor.size, c.conductor.material);
+	const limit = smallConductorLimitA(size, material);
 	const smallLimit =
 		limit === null
 			? null
 			: fig(
 					limit,
 					'A',
-					section('smallConductors', ed),
-					() => `${wire}: overcurrent protection not over ${q(limit, 'A')}`,
+					R.smallConductors,
+					kept(wire, 5, () => `${wire}: overcurrent protection not over ${q(limit, 'A')}`),
 				);
 
 	// Breaker against its load.
-	const over = breakerLoad > c.ratingA + 1e-9;
+	const over = breakerLoad > ratingA + 1e-9;
 	findings.push(
 		finding(
 			over ? 'violation' : 'ok',
 			feeder ? 'feeder-overload' : 'breaker-overload',
 			() =>
 				over
-					? `${name}: the load of ${q(breakerLoad, 'A')} is more than the ${c.ratingA} A breaker.`
-					: `${name}: the load of ${q(breakerLoad, 'A')} is within the ${c.ratingA} A breaker.`,
+					? `${name}: the load of ${q(breakerLoad, 'A')} is more than the ${ratingA} A breaker.`
+					: `${name}: the load of ${q(breakerLoad, 'A')} is within the ${ratingA} A breaker.`,
 			breakerLoadA.rule,
 			target,
 		),
@@ -305,7 +380,7 @@ export function checkCircuit(
 				'ampacity-not-tabulated',
 				() =>
 					`${name}: ${wire} has no ${column} °C ampacity in the ${ed} table; confirm the terminal rating or choose another size.`,
-				section('ampacityTable', ed),
+				R.ampacityTable,
 				target,
 			),
 		);
@@ -323,38 +398,37 @@ export function checkCircuit(
 				target,
 			),
 		);
-		const motorRule = section('motorAcConductors', ed);
-		if (limit !== null && c.ratingA > limit) {
+		const motorRule = R.motorAcConductors;
+		if (limit !== null && ratingA > limit) {
 			findings.push(
 				stats.motorOrAcOnly && stats.count > 0
 					? finding(
 							'note',
 							'small-conductor-limit',
 							() =>
-								`${name}: ${c.ratingA} A on ${wire} is above the ${limit} A of 240.4(D); allowed for motor and air-conditioning circuits sized by Articles 430 and 440 — check the nameplate maximum.`,
+								`${name}: ${ratingA} A on ${wire} is above the ${limit} A of 240.4(D); allowed for motor and air-conditioning circuits sized by Articles 430 and 440 — check the nameplate maximum.`,
 							motorRule,
 							target,
 						)
 					: finding(
 							'violation',
 							'small-conductor-limit',
-							() => `${name}: ${wire} may be protected at ${limit} A at most; the breaker is ${c.ratingA} A.`,
-							section('smallConductors', ed),
+							() => `${name}: ${wire} may be protected at ${limit} A at most; the breaker is ${ratingA} A.`,
+							R.smallConductors,
 							target,
 						),
 			);
-		} else if (c.ratingA > amp) {
+		} else if (ratingA > amp) {
 			const next = standardRatingAbove(amp);
-			const nextOk =
-				!isStandardRating(amp) && next === c.ratingA && c.ratingA <= 800 && !stats.hasReceptacles;
+			const nextOk = !isStandardRating(amp) && next === ratingA && ratingA <= 800 && !stats.hasReceptacles;
 			if (nextOk) {
 				findings.push(
 					finding(
 						'note',
 						'next-size-up',
 						() =>
-							`${name}: ${wire} (${amp} A) on a ${c.ratingA} A breaker, the next standard rating up, is permitted.`,
-						section('nextSizeUp', ed),
+							`${name}: ${wire} (${amp} A) on a ${ratingA} A breaker, the next standard rating up, is permitted.`,
+						R.nextSizeUp,
 						target,
 					),
 				);
@@ -364,7 +438,7 @@ export function checkCircuit(
 						'note',
 						'conductor-overcurrent',
 						() =>
-							`${name}: ${c.ratingA} A protects ${wire} (${amp} A); allowed only as motor or air-conditioning protection per the nameplate.`,
+							`${name}: ${ratingA} A protects ${wire} (${amp} A); allowed only as motor or air-conditioning protection per the nameplate.`,
 						motorRule,
 						target,
 					),
@@ -374,8 +448,8 @@ export function checkCircuit(
 					finding(
 						'violation',
 						'conductor-overcurrent',
-						() => `${name}: the ${c.ratingA} A breaker is larger than the ${amp} A ampacity of ${wire}.`,
-						sections(['ampacityTable', 'nextSizeUp'], ed),
+						() => `${name}: the ${ratingA} A breaker is larger than the ${amp} A ampacity of ${wire}.`,
+						R.ampacityNextSize,
 						target,
 					),
 				);
@@ -385,15 +459,15 @@ export function checkCircuit(
 				finding(
 					'ok',
 					'conductor-overcurrent',
-					() => `${name}: ${wire} (${amp} A) is protected by the ${c.ratingA} A breaker.`,
-					section('smallConductors', ed),
+					() => `${name}: ${wire} (${amp} A) is protected by the ${ratingA} A breaker.`,
+					R.smallConductors,
 					target,
 				),
 			);
 		}
 	}
 
-	if (c.ratingA === 10 && ed !== '2023') {
+	if (ratingA === 10 && ed !== '2023') {
 		findings.push(
 			finding(
 				'warning',
@@ -407,27 +481,27 @@ export function checkCircuit(
 
 	// 210.23: general-purpose outlet circuits in a dwelling are 15 or 20 A; cord-and-plug 80 %; fastened-in-place 50 %.
 	if (!feeder && stats.hasGeneralOutlets) {
-		if (c.ratingA > 20) {
+		if (ratingA > 20) {
 			findings.push(
 				finding(
 					'violation',
 					'multioutlet-rating',
 					() =>
-						`${name}: a lighting or receptacle circuit in a dwelling is rated 15 or 20 A, not ${c.ratingA} A.`,
-					section('multioutlet', ed),
+						`${name}: a lighting or receptacle circuit in a dwelling is rated 15 or 20 A, not ${ratingA} A.`,
+					R.multioutlet,
 					target,
 				),
 			);
 		}
 		const fastenedA = stats.fastenedVA / divisor;
-		if (fastenedA > 0.5 * c.ratingA + 1e-9) {
+		if (fastenedA > 0.5 * ratingA + 1e-9) {
 			findings.push(
 				finding(
 					'violation',
 					'fastened-over-50',
 					() =>
-						`${name}: equipment fastened in place draws ${q(fastenedA, 'A')}, more than 50 % of ${c.ratingA} A on a circuit that also supplies lighting or receptacles.`,
-					section('fastenedInPlace', ed),
+						`${name}: equipment fastened in place draws ${q(fastenedA, 'A')}, more than 50 % of ${ratingA} A on a circuit that also supplies lighting or receptacles.`,
+					R.fastenedInPlace,
 					target,
 				),
 			);
@@ -435,32 +509,33 @@ export function checkCircuit(
 	}
 	if (!feeder && stats.largestCordVA > 0) {
 		const cordA = stats.largestCordVA / divisor;
-		if (cordA > 0.8 * c.ratingA + 1e-9) {
+		if (cordA > 0.8 * ratingA + 1e-9) {
 			findings.push(
 				finding(
 					'violation',
 					'cord-and-plug-over-80',
-					() => `${name}: one cord-and-plug item draws ${q(cordA, 'A')}, more than 80 % of ${c.ratingA} A.`,
-					section('cordAndPlug', ed),
+					() => `${name}: one cord-and-plug item draws ${q(cordA, 'A')}, more than 80 % of ${ratingA} A.`,
+					R.cordAndPlug,
 					target,
 				),
 			);
 		}
 	}
-	for (const other of stats.otherVoltages) {
-		findings.push(
-			finding(
-				'note',
-				'load-voltage',
-				() => `${name}: a ${other} V item on a ${v} V circuit; check the nameplate allows ${v} V.`,
-				COMMON_PRACTICE,
-				target,
-			),
-		);
-	}
+	if (stats.otherVoltages)
+		for (const other of stats.otherVoltages) {
+			findings.push(
+				finding(
+					'note',
+					'load-voltage',
+					() => `${name}: a ${other} V item on a ${v} V circuit; check the nameplate allows ${v} V.`,
+					COMMON_PRACTICE,
+					target,
+				),
+			);
+		}
 
 	const vdAmps = feeder ? breakerLoad : ampsValue;
-	const vd = voltageDrop(vdAmps, c.lengthFt, c.conductor, c.poles, v, ed);
+	const vd = voltageDrop(vdAmps, c.lengthFt, c.conductor, poles, v, ed);
 	const vdLimit = feeder ? 2 : 3;
 	if (vd.percent.value > vdLimit) {
 		findings.push(
@@ -493,7 +568,7 @@ export function checkCircuit(
 				'violation',
 				'label-missing',
 				() => `${name} has no circuit directory entry; every circuit is identified by its purpose.`,
-				section('circuitDirectory', ed),
+				R.circuitDirectory,
 				target,
 			),
 		);

@@ -127,6 +127,8 @@ function supplyOf(system: VoltageSystem): Supply {
 interface PanelWork {
 	panel: Panel;
 	circuits: Circuit[];
+	/** Index in doc.circuits of each of `circuits`. */
+	indexes: number[];
 	own: { existing: LoadBucket; added: LoadBucket };
 	subtree: LoadBucket | null;
 	connectedVA: number;
@@ -148,6 +150,7 @@ export function computeJob(doc: JobDocument): JobResult {
 		work.set(p.id, {
 			panel: p,
 			circuits: [],
+			indexes: [],
 			own: { existing: emptyBucket(), added: emptyBucket() },
 			subtree: null,
 			connectedVA: 0,
@@ -161,11 +164,16 @@ export function computeJob(doc: JobDocument): JobResult {
 
 	const circuitsById = new Map<string, Circuit>();
 	let existingDwelling = false;
-	for (const c of doc.circuits) {
+	for (let i = 0; i < doc.circuits.length; i++) {
+		const c = doc.circuits[i] as Circuit;
 		circuitsById.set(c.id, c);
 		if (c.status === 'removed') continue;
 		if (c.status === 'existing' || c.status === 'modified') existingDwelling = true;
-		work.get(c.panelId)?.circuits.push(c);
+		const w = work.get(c.panelId);
+		if (w) {
+			w.circuits.push(c);
+			w.indexes.push(i);
+		}
 	}
 	const loadsByCircuit = new Map<string, Load[]>();
 	for (const l of doc.loads) {
@@ -197,6 +205,9 @@ export function computeJob(doc: JobDocument): JobResult {
 	const postOrder = [...preOrder].reverse();
 
 	const facts: RequiredCircuitFacts = { smallAppliance: [], laundry: [], receptacle20ARooms: new Set() };
+	// Results by index in doc.circuits; feeders also by id, for their subpanels.
+	const resultAt: (CircuitResult | undefined)[] = new Array(doc.circuits.length);
+	const nameAt: string[] = new Array(doc.circuits.length);
 	const circuitResults = new Map<string, CircuitResult>();
 	const jobArea = floorArea(doc);
 	const soleRoot = roots.length === 1 ? roots[0] : undefined;
@@ -206,7 +217,12 @@ export function computeJob(doc: JobDocument): JobResult {
 		const w = work.get(panelId);
 		if (!w) continue;
 		const p = w.panel;
-		for (const c of w.circuits) {
+		const legIndex = legsOf(p.voltageSystem);
+		for (let k = 0; k < w.circuits.length; k++) {
+			const c = w.circuits[k] as Circuit;
+			const index = w.indexes[k] as number;
+			const name = circuitName(c);
+			nameAt[index] = name;
 			const loads = loadsByCircuit.get(c.id) ?? noLoads;
 			const v = circuitVoltage(c.poles, p.voltageSystem);
 			const stats: CircuitLoadStats = emptyStats();
@@ -234,7 +250,7 @@ export function computeJob(doc: JobDocument): JobResult {
 				if (l.cordAndPlug && each > stats.largestCordVA) stats.largestCordVA = each;
 				if (!general && !l.cordAndPlug) stats.fastenedVA += total;
 				if (!(isMotor(l) || l.kind === 'hvac-cool' || l.kind === 'heat-pump')) stats.motorOrAcOnly = false;
-				if (l.voltage !== v && l.voltage !== 120) stats.otherVoltages.add(l.voltage);
+				if (l.voltage !== v && l.voltage !== 120) (stats.otherVoltages ??= new Set()).add(l.voltage);
 				if (l.kind === 'range') for (let i = 0; i < l.quantity; i++) stats.cookingKW.push(each / 1000);
 				else stats.onlyCooking = false;
 				const added = (l.status ?? (c.status === 'new' ? 'new' : 'existing')) === 'new';
@@ -244,8 +260,8 @@ export function computeJob(doc: JobDocument): JobResult {
 				if (l.kind === 'small-appliance') firstSA = false;
 				if (l.kind === 'laundry') firstLaundry = false;
 			}
-			if (!firstSA) facts.smallAppliance.push({ id: c.id, name: circuitName(c), ratingA: c.ratingA });
-			if (!firstLaundry) facts.laundry.push({ id: c.id, name: circuitName(c), ratingA: c.ratingA });
+			if (!firstSA) facts.smallAppliance.push({ id: c.id, name, ratingA: c.ratingA });
+			if (!firstLaundry) facts.laundry.push({ id: c.id, name, ratingA: c.ratingA });
 			if (hasReceptacle && c.poles === 1 && c.ratingA === 20) {
 				for (const r of c.roomIds) facts.receptacle20ARooms.add(r);
 				for (const l of loads)
@@ -265,11 +281,11 @@ export function computeJob(doc: JobDocument): JobResult {
 				: null;
 			const positions = positionsTaken(c.position, c.poles);
 			const legs = positions.map((pos) => legOf(pos, p.voltageSystem));
-			const r = checkCircuit(c, p, stats, ctx, feeder, legs, positions);
-			for (const f of protectionFindings(c, loads, roomsById, ed, circuitName(c))) r.findings.push(f);
-			circuitResults.set(c.id, r);
+			const r = checkCircuit(c, p, stats, ctx, feeder, legs, positions, name);
+			for (const f of protectionFindings(c, loads, roomsById, ed, name)) r.findings.push(f);
+			resultAt[index] = r;
+			if (sub) circuitResults.set(c.id, r);
 			w.connectedVA += r.connectedVA.value;
-			const legIndex = legsOf(p.voltageSystem);
 			for (let i = 0; i < legs.length; i++) {
 				const li = legIndex.indexOf(legs[i] as Leg);
 				if (li >= 0) w.legAmps[li] = (w.legAmps[li] ?? 0) + (r.legAmps[i] ?? 0);
@@ -309,25 +325,27 @@ export function computeJob(doc: JobDocument): JobResult {
 		upstreamPct.set(panelId, up);
 	}
 	const circuits: CircuitResult[] = [];
-	for (const c of doc.circuits) {
-		const r = circuitResults.get(c.id);
+	for (let i = 0; i < doc.circuits.length; i++) {
+		const r = resultAt[i];
 		if (!r) continue;
+		const c = doc.circuits[i] as Circuit;
+		const name = nameAt[i] as string;
 		const up = upstreamPct.get(r.panelId) ?? 0;
 		if (up > 0 && r.feedsPanelId === null) {
-			const total = up + r.voltageDrop.percent.value;
+			const branch = r.voltageDrop.percent.value;
+			const total = up + branch;
 			r.voltageDropTotal = fig(
 				roundTo(total, 3),
 				'%',
 				r.voltageDrop.percent.rule,
-				() => `feeders ${q(up, '%')} + branch ${q(r.voltageDrop.percent.value, '%')} = ${q(total, '%')}`,
+				() => `feeders ${q(up, '%')} + branch ${q(branch, '%')} = ${q(total, '%')}`,
 			);
 			if (total > 5) {
 				r.findings.push(
 					finding(
 						'note',
 						'voltage-drop-total',
-						() =>
-							`${circuitName(c)}: feeder and branch together drop ${q(total, '%')}, over the 5 % recommended.`,
+						() => `${name}: feeder and branch together drop ${q(total, '%')}, over the 5 % recommended.`,
 						r.voltageDrop.percent.rule,
 						{ kind: 'circuit', id: c.id },
 					),
@@ -561,31 +579,35 @@ function panelResult(
 	}
 
 	const supply = supplyOf(p.voltageSystem);
+	// Plain values for the texts, which are written when first read.
+	const connected = w.connectedVA;
+	const calculated = w.calculatedVA;
+	const circuitCount = w.circuits.length;
 	const connectedVA = fig(
-		roundTo(w.connectedVA, 3),
+		roundTo(connected, 3),
 		'VA',
 		'sum of the circuits',
-		() => `${w.circuits.length} circuits: ${q(w.connectedVA, 'VA')}`,
+		() => `${circuitCount} circuits: ${q(connected, 'VA')}`,
 	);
 	const connectedA = fig(
-		roundTo(w.connectedVA / supply.divisor, 3),
+		roundTo(connected / supply.divisor, 3),
 		'A',
 		'I = S ÷ V',
-		() => `${q(w.connectedVA, 'VA')} ÷ ${supply.label} = ${q(w.connectedVA / supply.divisor, 'A')}`,
+		() => `${q(connected, 'VA')} ÷ ${supply.label} = ${q(connected / supply.divisor, 'A')}`,
 	);
 	const total = calculation[calculation.length - 1];
 	const calculatedVA = fig(
-		w.calculatedVA,
+		calculated,
 		'VA',
 		total?.rule ?? `NEC ${ed} Article 220 Part III`,
 		total?.working ?? '',
 	);
-	const calcA = w.calculatedVA / supply.divisor;
+	const calcA = calculated / supply.divisor;
 	const calculatedA = fig(
 		roundTo(calcA, 3),
 		'A',
 		'I = S ÷ V',
-		() => `${q(w.calculatedVA, 'VA')} ÷ ${supply.label} = ${q(calcA, 'A')}`,
+		() => `${q(calculated, 'VA')} ÷ ${supply.label} = ${q(calcA, 'A')}`,
 	);
 
 	const ratingRule = section('panelRating', ed);

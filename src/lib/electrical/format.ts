@@ -19,6 +19,14 @@ function groupThousands(intPart: string): string {
 
 /** Formats a number for working text: thousands separators, at most `decimals` decimals, no trailing zeros. */
 export function num(value: number, decimals = 2): string {
+	// Whole numbers (most figures) skip the rounding; the text is the same as below.
+	if (Number.isInteger(value) && value < 1e12 && value > -1e12) {
+		if (value === 0) return '0';
+		const neg = value < 0;
+		let s = String(neg ? -value : value);
+		if (s.length > 3) s = groupThousands(s);
+		return neg ? `-${s}` : s;
+	}
 	const f = decimals === 2 ? 100 : 10 ** decimals;
 	const r = Math.round(value * f) / f;
 	const neg = r < 0;
@@ -41,9 +49,89 @@ export function q(value: number, unit: Unit, decimals = 2): string {
 /** Text, or a function returning it. */
 export type Text = string | (() => string);
 
-/** Builds a figure; `working` may be given as a function returning the text. */
+/*
+ * Figures and findings built from a function write their text when it is first read: a large job
+ * has hundreds of thousands of them and most texts are never shown. The text is an own enumerable
+ * accessor, so JSON, spread, structured clone (the documents worker) and Object.keys see the same
+ * fields, in the same order, as a plain object. Texts must only use values fixed when they are built.
+ */
+
+class LazyFigure implements Figure {
+	declare value: number;
+	declare unit: Unit;
+	declare rule: string;
+	declare working: string;
+	#text: Text;
+	constructor(value: number, unit: Unit, rule: string, text: Text) {
+		this.#text = text;
+		this.value = value;
+		this.unit = unit;
+		this.rule = rule;
+		Object.defineProperty(this, 'working', WORKING);
+	}
+	static read(f: LazyFigure): string {
+		const t = f.#text;
+		if (typeof t === 'string') return t;
+		const s = t();
+		f.#text = s;
+		return s;
+	}
+	static write(f: LazyFigure, s: string): void {
+		f.#text = s;
+	}
+}
+const WORKING: PropertyDescriptor = {
+	get(this: LazyFigure) {
+		return LazyFigure.read(this);
+	},
+	set(this: LazyFigure, s: string) {
+		LazyFigure.write(this, s);
+	},
+	enumerable: true,
+	configurable: true,
+};
+
+class LazyFinding implements Finding {
+	declare severity: Severity;
+	declare code: string;
+	declare message: string;
+	declare rule: string;
+	declare target: Target;
+	#text: Text;
+	constructor(severity: Severity, code: string, text: Text, rule: string, target: Target) {
+		this.#text = text;
+		this.severity = severity;
+		this.code = code;
+		Object.defineProperty(this, 'message', MESSAGE);
+		this.rule = rule;
+		this.target = target;
+	}
+	static read(f: LazyFinding): string {
+		const t = f.#text;
+		if (typeof t === 'string') return t;
+		const s = t();
+		f.#text = s;
+		return s;
+	}
+	static write(f: LazyFinding, s: string): void {
+		f.#text = s;
+	}
+}
+const MESSAGE: PropertyDescriptor = {
+	get(this: LazyFinding) {
+		return LazyFinding.read(this);
+	},
+	set(this: LazyFinding, s: string) {
+		LazyFinding.write(this, s);
+	},
+	enumerable: true,
+	configurable: true,
+};
+
+/** Builds a figure; `working` may be a function returning the text, called when the text is first read. */
 export function fig(value: number, unit: Unit, rule: string, working: Text): Figure {
-	return { value, unit, rule, working: typeof working === 'string' ? working : working() };
+	if (typeof working === 'string') return { value, unit, rule, working };
+	return new LazyFigure(value, unit, rule, working);
 }
 
 /** Builds a worksheet line. */
@@ -58,7 +146,7 @@ export function line(
 	return { key, label, value, unit, rule, working };
 }
 
-/** Builds a finding. */
+/** Builds a finding; `message` may be a function returning the text, called when the text is first read. */
 export function finding(
 	severity: Severity,
 	code: string,
@@ -66,5 +154,6 @@ export function finding(
 	rule: string,
 	target: Target,
 ): Finding {
-	return { severity, code, message: typeof message === 'string' ? message : message(), rule, target };
+	if (typeof message === 'string') return { severity, code, message, rule, target };
+	return new LazyFinding(severity, code, message, rule, target);
 }

@@ -66,22 +66,27 @@ export function protectionFindings(
 	const out: Finding[] = [];
 	const target = { kind: 'circuit', id: c.id } as const;
 	if (c.poles === 3) return out;
-	const roomIds = new Set(c.roomIds);
-	for (const l of loads) for (const r of l.roomIds) roomIds.add(r);
-	if (roomIds.size === 0) return out;
+	// Room lists are short: arrays kept in first-seen order, as a Set would be, cost less than Sets.
+	const roomIds: string[] = [];
+	for (const r of c.roomIds) if (!roomIds.includes(r)) roomIds.push(r);
+	for (const l of loads) for (const r of l.roomIds) if (!roomIds.includes(r)) roomIds.push(r);
+	if (roomIds.length === 0) return out;
 	// Receptacles are placed by their own rooms where recorded, else by the circuit's rooms.
-	const receptacleRooms = new Set<string>();
+	const receptacleRooms: string[] = [];
+	let receptacleLoads = 0;
+	let countertop = false;
 	for (const l of loads) {
 		if (!isReceptacleLoad(l)) continue;
-		for (const r of l.roomIds.length > 0 ? l.roomIds : c.roomIds) receptacleRooms.add(r);
+		receptacleLoads++;
+		if (l.kind === 'small-appliance') countertop = true;
+		for (const r of l.roomIds.length > 0 ? l.roomIds : c.roomIds)
+			if (!receptacleRooms.includes(r)) receptacleRooms.push(r);
 	}
 	const existing = c.status === 'existing';
 
 	// GFCI: receptacles; 2017 only 125 V 15/20 A, from 2020 125–250 V on single-phase circuits.
-	const receptacleLoads = loads.filter(isReceptacleLoad);
 	const gfciVoltageOk = edition === '2017' ? c.poles === 1 && c.ratingA <= 20 : true;
-	if (receptacleLoads.length > 0 && gfciVoltageOk) {
-		const countertop = receptacleLoads.some((l) => l.kind === 'small-appliance');
+	if (receptacleLoads > 0 && gfciVoltageOk) {
 		let need: GfciNeed = 'no';
 		const where: string[] = [];
 		for (const id of receptacleRooms) {

@@ -70,14 +70,30 @@ const SECTION_TABLE = {
 
 export type SectionKey = keyof typeof SECTION_TABLE;
 
+// Labels are built once per edition: the engine asks for them for every circuit.
+const LABELS = {} as Record<Edition, Record<SectionKey, string>>;
+for (const edition of ['2017', '2020', '2023'] as const) {
+	const labels = {} as Record<SectionKey, string>;
+	for (const key of Object.keys(SECTION_TABLE) as SectionKey[])
+		labels[key] = `NEC ${edition} ${SECTION_TABLE[key][edition]}`;
+	LABELS[edition] = labels;
+}
+const joined = new Map<string, string>();
+
 /** The rule label for a section in an edition, e.g. section('lightingDemand', '2023') → 'NEC 2023 Table 220.45'. */
 export function section(key: SectionKey, edition: Edition): string {
-	return `NEC ${edition} ${SECTION_TABLE[key][edition]}`;
+	return LABELS[edition][key];
 }
 
 /** Section labels for two or more keys joined: 'NEC 2023 210.19(A)(1), 210.20(A)'. */
 export function sections(keys: readonly SectionKey[], edition: Edition): string {
-	return `NEC ${edition} ${keys.map((k) => SECTION_TABLE[k][edition]).join(', ')}`;
+	const id = `${edition} ${keys.join(' ')}`;
+	let label = joined.get(id);
+	if (label === undefined) {
+		label = `NEC ${edition} ${keys.map((k) => SECTION_TABLE[k][edition]).join(', ')}`;
+		joined.set(id, label);
+	}
+	return label;
 }
 
 /** Mark for rules that are practice, not code. */
