@@ -74,8 +74,17 @@ export async function createFirmWithOwner(
 	});
 }
 
+export interface FirmView {
+	id: string;
+	name: string;
+	licenceNumber: string;
+	phone: string | null;
+	address: string | null;
+	members: { id: string; name: string; email: string; memberRole: 'owner' | 'member' }[];
+}
+
 /** A firm with its members, for the contractor start page and the firm API. */
-export async function getFirm(knex: Knex, firmId: string) {
+export async function getFirm(knex: Knex, firmId: string): Promise<FirmView | null> {
 	const firm = await knex('firms')
 		.where({ id: firmId })
 		.first('id', 'name', 'licence_number as licenceNumber', 'phone', 'address');
