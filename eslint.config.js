@@ -1,7 +1,19 @@
 import tseslint from 'typescript-eslint';
 
 export default tseslint.config(
-	{ ignores: ['dist/', '.astro/', '.data/', 'node_modules/', 'uploads/', 'test-results/', '**/*.astro'] },
+	{
+		ignores: [
+			'dist/',
+			'.astro/',
+			'.data/',
+			'node_modules/',
+			'uploads/',
+			'test-results/',
+			'**/*.astro',
+			'**/*-tmp.*',
+			'**/*-tmp/',
+		],
+	},
 	...tseslint.configs.recommended,
 	{
 		rules: {
