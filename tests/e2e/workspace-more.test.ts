@@ -165,6 +165,14 @@ describe('panel editor', () => {
 		await page.getByLabel('Load 2 description').fill('Wall heater');
 		await page.getByLabel('Load 2 voltage').selectOption('240');
 		await page.getByLabel('Load 2 rating in volt-amperes').fill('1500');
+		// Before saving, the live check names the load by its circuit and row, not by the document's path.
+		const live = page.getByText('The checks run once the job is complete enough:');
+		await live.waitFor();
+		await expect(live.textContent()).resolves.toMatch(
+			/Circuit 3 \(“Hall, renamed in a refused save”\), load 2, voltage: a 240 V load cannot be supplied/,
+		);
+		await expect(live.textContent()).resolves.not.toMatch(/loads\[\d+\]/);
+		await shot(page, 'more-live-check-in-words');
 		await page.getByRole('button', { name: 'Save the circuit' }).click();
 		// A 1-pole breaker in a 120/240 V panel supplies 120 V only.
 		await page
@@ -198,6 +206,8 @@ describe('panel editor', () => {
 		await expect(current.textContent()).resolves.toContain('Hall receptacles (office)');
 		await expect(current.textContent()).resolves.toContain('65');
 		await expect(current.textContent()).resolves.toContain('Hall outlets');
+		// The breaker type in words (circuitAt makes an AFCI breaker), not its stored value 'afci'.
+		await expect(current.textContent()).resolves.toContain('AFCI');
 		await shot(page, 'more-conflict');
 		await page.getByRole('button', { name: 'Load the current values' }).click();
 		await page.waitForFunction(
@@ -329,6 +339,9 @@ describe('rooms', () => {
 		await table.getByLabel('Area (ft²)').fill('');
 		await table.getByRole('button', { name: 'Save the room' }).click();
 		await table.locator('.field-error').first().waitFor();
+		await expect(table.locator('.field-error').first().textContent()).resolves.toBe(
+			'Enter the floor area in square feet.',
+		);
 		await shot(page, 'more-room-edit-error');
 		await table.getByLabel('Area (ft²)').fill('172');
 		await table.getByRole('button', { name: 'Save the room' }).click();

@@ -94,6 +94,21 @@ describe('job workspace in the browser', () => {
 		await expect(page.getByTestId('job-name').textContent()).resolves.toBe(JOB_NAME);
 	});
 
+	test('the job details open for editing with the saved values, and Cancel changes nothing', async () => {
+		await page.getByRole('button', { name: 'Edit the job details' }).click();
+		const form = page.getByRole('form', { name: 'Job details' });
+		await form.waitFor();
+		await expect(form.getByLabel('Job name').inputValue()).resolves.toBe(JOB_NAME);
+		await expect(form.getByLabel('Homeowner', { exact: true }).inputValue()).resolves.toBe(
+			'Bram Okonjo-Teale',
+		);
+		await expect(form.getByLabel('Existing service rating (A)').inputValue()).resolves.toBe('200');
+		await shot(page, 'workspace-job-details-form');
+		await form.getByRole('button', { name: 'Cancel' }).click();
+		await page.getByTestId('job-details').waitFor();
+		await expect(page.getByTestId('job-name').textContent()).resolves.toBe(JOB_NAME);
+	});
+
 	test('rooms and a panelboard are added without a page reload', async () => {
 		await page.getByLabel('Room name').fill('Main kitchen');
 		await page.getByLabel('Room type').selectOption('kitchen');

@@ -85,6 +85,13 @@ describe('rooms', () => {
 		['an unknown type', { name: 'Den', type: 'den', areaFt2: 100 }, 'type', /not a room type/],
 		['a negative area', { name: 'Den', type: 'living', areaFt2: -1 }, 'areaFt2', /0 ft² or more/],
 		['a fractional floor', { name: 'Den', type: 'living', areaFt2: 10, floor: 1.5 }, 'floor', /whole storey/],
+		[
+			'an emptied area',
+			{ name: 'Den', type: 'living', areaFt2: null },
+			'areaFt2',
+			/^Enter the floor area in square feet\.$/,
+		],
+		['no area', { name: 'Den', type: 'living' }, 'areaFt2', /^Enter the floor area in square feet\.$/],
 	])('refuses a room with %s and writes nothing', async (_what, body, field, message) => {
 		const before = await jobTableCounts(db);
 		const res = await call<ErrorBody>(owner, 'POST', `/api/jobs/${demoJobId}/rooms`, body);

@@ -3,8 +3,8 @@ import Notice from '../ui/Notice';
 interface Props {
 	what: string;
 	current: Record<string, unknown> | null;
-	/** Field names and labels to show from the current record. */
-	fields: [key: string, label: string][];
+	/** Field names and labels to show from the current record, and how to word a value when not as stored. */
+	fields: [key: string, label: string, format?: (value: unknown) => string][];
 	onReload: () => void;
 }
 
@@ -25,10 +25,10 @@ export default function ConflictNotice({ what, current, fields, onReload }: Prop
 			</p>
 			{current && (
 				<dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-3 gap-y-0.5" data-testid="conflict-current">
-					{fields.map(([k, label]) => (
+					{fields.map(([k, label, format]) => (
 						<div key={k} className="contents">
 							<dt className="text-ink-600">{label}</dt>
-							<dd className="font-semibold">{shown(current[k])}</dd>
+							<dd className="font-semibold">{format ? format(current[k]) : shown(current[k])}</dd>
 						</div>
 					))}
 				</dl>

@@ -1,5 +1,6 @@
 import { useMemo } from 'react';
 import { api } from '../../lib/client/api-client';
+import { engineMessageInWords } from '../../lib/client/engine-messages';
 import { computeTree, type JobTree } from '../../lib/client/job-tree';
 import { useResource } from '../../lib/client/use-resource';
 import SketchesSection from '../sketches/SketchesSection';
@@ -179,7 +180,7 @@ function IncompleteJob({ errors }: { errors: string[] }) {
 			<p className="font-semibold">The checks run once the job is complete enough:</p>
 			<ul className="mt-1 list-disc pl-5">
 				{errors.map((e) => (
-					<li key={e}>{e}</li>
+					<li key={e}>{engineMessageInWords(e)}</li>
 				))}
 			</ul>
 		</Notice>

@@ -6,7 +6,7 @@ import ConfirmDialog from '../ui/ConfirmDialog';
 import Notice from '../ui/Notice';
 import SeverityBadge, { worstSeverity } from '../ui/SeverityBadge';
 import PanelForm, { type PanelValues } from './PanelForm';
-import { VOLTAGE_LABELS } from '../jobs/NewJobForm';
+import { VOLTAGE_LABELS } from '../jobs/JobFields';
 
 interface Props {
 	jobId: string;

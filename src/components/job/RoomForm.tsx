@@ -2,11 +2,10 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
-import { messageOf } from '../../lib/client/api-client';
 import { ROOM_TYPES } from '../../lib/electrical/schema';
 import { roomInputSchema } from '../../lib/schemas/room';
-import FormField, { fieldAria } from '../auth/FormField';
-import { applyServerErrors, asNumber, asNumberOrNull } from '../jobs/form-helpers';
+import { formErrorMessage } from '../jobs/form-helpers';
+import { NumberField, optionsOf, SelectField, TextField } from '../ui/fields';
 import Notice from '../ui/Notice';
 
 type Input = z.input<typeof roomInputSchema>;
@@ -42,13 +41,7 @@ interface Props {
 /** Add or edit a room; the schema is the one POST/PATCH /api/rooms use. */
 export default function RoomForm({ idPrefix, initial, submitLabel, onSubmit, onCancel }: Props) {
 	const [message, setMessage] = useState<string | null>(null);
-	const {
-		register,
-		handleSubmit,
-		setError,
-		reset,
-		formState: { errors, isSubmitting },
-	} = useForm<Input, unknown, RoomValues>({
+	const form = useForm<Input, unknown, RoomValues>({
 		resolver: zodResolver(roomInputSchema),
 		defaultValues: {
 			name: '',
@@ -59,18 +52,22 @@ export default function RoomForm({ idPrefix, initial, submitLabel, onSubmit, onC
 			...initial,
 		},
 	});
+	const {
+		handleSubmit,
+		setError,
+		reset,
+		formState: { isSubmitting },
+	} = form;
 	const submit = handleSubmit(async (values) => {
 		setMessage(null);
 		try {
 			await onSubmit(values);
 			if (!initial) reset();
 		} catch (err) {
-			const rest = applyServerErrors(err, setError, FIELDS);
-			setMessage([messageOf(err), ...rest].join(' '));
+			setMessage(formErrorMessage(err, setError, FIELDS));
 		}
 	});
 	const id = (k: string) => `${idPrefix}-${k}`;
-	const e = (k: (typeof FIELDS)[number]) => errors[k]?.message as string | undefined;
 	return (
 		<form
 			onSubmit={submit}
@@ -83,34 +80,16 @@ export default function RoomForm({ idPrefix, initial, submitLabel, onSubmit, onC
 					<Notice tone="error">{message}</Notice>
 				</div>
 			)}
-			<FormField id={id('name')} label="Room name" error={e('name')}>
-				<input {...register('name')} {...fieldAria(id('name'), e('name'))} className="field-input" />
-			</FormField>
-			<FormField id={id('type')} label="Room type" error={e('type')}>
-				<select {...register('type')} {...fieldAria(id('type'), e('type'))} className="field-input">
-					{ROOM_TYPES.map((t) => (
-						<option key={t} value={t}>
-							{ROOM_TYPE_LABELS[t]}
-						</option>
-					))}
-				</select>
-			</FormField>
-			<FormField id={id('floor')} label="Floor" error={e('floor')}>
-				<input
-					inputMode="numeric"
-					{...register('floor', { setValueAs: asNumber })}
-					{...fieldAria(id('floor'), e('floor'))}
-					className="field-input"
-				/>
-			</FormField>
-			<FormField id={id('areaFt2')} label="Area (ft²)" error={e('areaFt2')}>
-				<input
-					inputMode="decimal"
-					{...register('areaFt2', { setValueAs: asNumberOrNull })}
-					{...fieldAria(id('areaFt2'), e('areaFt2'))}
-					className="field-input"
-				/>
-			</FormField>
+			<TextField form={form} name="name" id={id('name')} label="Room name" />
+			<SelectField
+				form={form}
+				name="type"
+				id={id('type')}
+				label="Room type"
+				options={optionsOf(ROOM_TYPES, (t) => ROOM_TYPE_LABELS[t])}
+			/>
+			<NumberField form={form} name="floor" id={id('floor')} label="Floor" whole />
+			<NumberField form={form} name="areaFt2" id={id('areaFt2')} label="Area (ft²)" emptyIsNull />
 			<div className="flex gap-2 sm:pt-6">
 				<button type="submit" className="btn-primary" disabled={isSubmitting}>
 					{isSubmitting ? 'Saving…' : submitLabel}

@@ -7,6 +7,7 @@ import LoadState from '../ui/LoadState';
 import ImportExport from '../job/ImportExport';
 import NewJobForm from './NewJobForm';
 import StatusTag from './StatusTag';
+import FormField from '../auth/FormField';
 
 interface Props {
 	firms: { id: string; name: string }[];
@@ -88,10 +89,7 @@ export default function JobsList({ firms }: Props) {
 					Jobs
 				</h2>
 				<div className="mt-3 grid gap-3 sm:grid-cols-[1fr_auto_auto]">
-					<div>
-						<label htmlFor="jobs-q" className="field-label">
-							Search
-						</label>
+					<FormField id="jobs-q" label="Search">
 						<input
 							id="jobs-q"
 							type="search"
@@ -100,11 +98,8 @@ export default function JobsList({ firms }: Props) {
 							placeholder="Name, address, homeowner or permit number"
 							className="field-input"
 						/>
-					</div>
-					<div>
-						<label htmlFor="jobs-status" className="field-label">
-							Status
-						</label>
+					</FormField>
+					<FormField id="jobs-status" label="Status">
 						<select
 							id="jobs-status"
 							value={status}
@@ -121,11 +116,8 @@ export default function JobsList({ firms }: Props) {
 								</option>
 							))}
 						</select>
-					</div>
-					<div>
-						<label htmlFor="jobs-sort" className="field-label">
-							Sort
-						</label>
+					</FormField>
+					<FormField id="jobs-sort" label="Sort">
 						<select
 							id="jobs-sort"
 							value={sort}
@@ -138,7 +130,7 @@ export default function JobsList({ firms }: Props) {
 								</option>
 							))}
 						</select>
-					</div>
+					</FormField>
 				</div>
 
 				<div className="mt-4" aria-live="polite">

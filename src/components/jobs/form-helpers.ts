@@ -1,5 +1,5 @@
 import type { FieldValues, Path, UseFormSetError } from 'react-hook-form';
-import { ApiError } from '../../lib/client/api-client';
+import { ApiError, messageOf } from '../../lib/client/api-client';
 
 /** `setValueAs` for a number input: '' becomes null (or undefined), text that is not a number stays text for the schema to name. */
 export const asNumberOrNull = (v: unknown) =>
@@ -27,4 +27,13 @@ export function applyServerErrors<T extends FieldValues>(
 		else rest.push(path === '_' ? msg : `${path}: ${msg}`);
 	}
 	return rest;
+}
+
+/** The form's notice for a failed save: the server's message and whatever it said about no field shown. */
+export function formErrorMessage<T extends FieldValues>(
+	err: unknown,
+	setError: UseFormSetError<T>,
+	known: readonly string[],
+): string {
+	return [messageOf(err), ...applyServerErrors(err, setError, known)].join(' ');
 }

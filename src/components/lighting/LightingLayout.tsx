@@ -7,6 +7,7 @@ import { num } from '../../lib/electrical/format';
 import LoadState from '../ui/LoadState';
 import Notice from '../ui/Notice';
 import LayoutDrawing from './LayoutDrawing';
+import FormField from '../auth/FormField';
 
 interface Props {
 	jobId: string;
@@ -170,10 +171,7 @@ export default function LightingLayout({ jobId }: Props) {
 						aria-label="Room and fixtures"
 						onSubmit={(e) => e.preventDefault()}
 					>
-						<div>
-							<label htmlFor="rl-roomId" className="field-label">
-								Room
-							</label>
+						<FormField id="rl-roomId" label="Room">
 							<select
 								id="rl-roomId"
 								value={entry.roomId}
@@ -192,7 +190,7 @@ export default function LightingLayout({ jobId }: Props) {
 									</option>
 								))}
 							</select>
-						</div>
+						</FormField>
 						<div className="grid grid-cols-2 gap-3">
 							{field('lengthFt', 'Length', 'ft')}
 							{field('widthFt', 'Width', 'ft')}

@@ -5,9 +5,12 @@ import { ApiError, messageOf } from '../../lib/client/api-client';
 import type { RoomRecord } from '../../lib/client/job-tree';
 import type { CircuitResult } from '../../lib/electrical';
 import { num } from '../../lib/electrical/format';
+import { BREAKER_TYPES } from '../../lib/electrical/schema';
 import { BREAKER_RATINGS_A, CONDUCTOR_SIZES } from '../../lib/electrical/tables';
-import FormField, { fieldAria } from '../auth/FormField';
-import { applyServerErrors, asNumber } from '../jobs/form-helpers';
+import { BREAKER_TYPE_LABELS } from '../../lib/schemas/circuit';
+import { applyServerErrors } from '../jobs/form-helpers';
+import { TEMPERATURE_OPTIONS } from '../jobs/JobFields';
+import { NumberField, optionsOf, SelectField, TextField, type Option } from '../ui/fields';
 import Notice from '../ui/Notice';
 import SeverityBadge from '../ui/SeverityBadge';
 import { circuitFormSchema, type CircuitFormInput, type CircuitFormValues } from './editor-schema';
@@ -43,13 +46,11 @@ function splitLoadErrors(err: unknown): { loadErrors: [string, string][]; other:
 	return { loadErrors, other: new ApiError(err.status, err.code, err.message, fields, err.current) };
 }
 
-const BREAKER_LABELS: Record<string, string> = {
-	standard: 'Standard',
-	afci: 'AFCI',
-	gfci: 'GFCI',
-	'dual-function': 'Dual-function (AFCI + GFCI)',
-	gfpe: 'GFPE (equipment)',
-};
+const POLE_OPTIONS: Option[] = [
+	[1, '1-pole (120 V)'],
+	[2, '2-pole (240 V / 208 V)'],
+	[3, '3-pole'],
+];
 
 interface Props {
 	title: string;
@@ -201,105 +202,79 @@ export default function CircuitEditor({
 
 			<div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
 				<div className="sm:col-span-2 lg:col-span-3">
-					<FormField id="c-label" label="Label (circuit directory, 408.4(A))" error={e('label')}>
-						<input
-							{...register('label')}
-							{...fieldAria('c-label', e('label'))}
-							className="field-input"
-							placeholder="Kitchen counter receptacles, east"
-						/>
-					</FormField>
-				</div>
-				<FormField id="c-ratingA" label="Breaker rating" error={e('ratingA')}>
-					<select
-						{...register('ratingA', { setValueAs: asNumber })}
-						{...fieldAria('c-ratingA', e('ratingA'))}
-						className="field-input"
-					>
-						{BREAKER_RATINGS_A.filter((a) => a <= 200).map((a) => (
-							<option key={a} value={a}>
-								{a} A
-							</option>
-						))}
-					</select>
-				</FormField>
-				<FormField id="c-poles" label="Poles" error={e('poles')}>
-					<select
-						{...register('poles', { setValueAs: asNumber })}
-						{...fieldAria('c-poles', e('poles'))}
-						className="field-input"
-						disabled={!isNew}
-					>
-						<option value={1}>1-pole (120 V)</option>
-						<option value={2}>2-pole (240 V / 208 V)</option>
-						<option value={3}>3-pole</option>
-					</select>
-				</FormField>
-				<FormField id="c-breakerType" label="Breaker type" error={e('breakerType')}>
-					<select
-						{...register('breakerType')}
-						{...fieldAria('c-breakerType', e('breakerType'))}
-						className="field-input"
-					>
-						{Object.entries(BREAKER_LABELS).map(([k, label]) => (
-							<option key={k} value={k}>
-								{label}
-							</option>
-						))}
-					</select>
-				</FormField>
-				<FormField id="c-size" label="Conductor size (AWG)" error={e('conductor.size')}>
-					<select
-						{...register('conductor.size')}
-						{...fieldAria('c-size', e('conductor.size'))}
-						className="field-input"
-					>
-						{CONDUCTOR_SIZES.map((s) => (
-							<option key={s} value={s}>
-								{s} AWG
-							</option>
-						))}
-					</select>
-				</FormField>
-				<FormField id="c-material" label="Conductor material" error={e('conductor.material')}>
-					<select
-						{...register('conductor.material')}
-						{...fieldAria('c-material', e('conductor.material'))}
-						className="field-input"
-					>
-						<option value="cu">Copper</option>
-						<option value="al">Aluminum</option>
-					</select>
-				</FormField>
-				<FormField id="c-insulation" label="Insulation rating" error={e('conductor.insulationC')}>
-					<select
-						{...register('conductor.insulationC', { setValueAs: asNumber })}
-						{...fieldAria('c-insulation', e('conductor.insulationC'))}
-						className="field-input"
-					>
-						{[60, 75, 90].map((t) => (
-							<option key={t} value={t}>
-								{t} °C
-							</option>
-						))}
-					</select>
-				</FormField>
-				<FormField id="c-lengthFt" label="One-way length (ft)" error={e('lengthFt')}>
-					<input
-						inputMode="decimal"
-						{...register('lengthFt', { setValueAs: asNumber })}
-						{...fieldAria('c-lengthFt', e('lengthFt'))}
-						className="field-input"
+					<TextField
+						form={form}
+						name="label"
+						id="c-label"
+						label="Label (circuit directory, 408.4(A))"
+						placeholder="Kitchen counter receptacles, east"
 					/>
-				</FormField>
-				<FormField id="c-status" label="Status" error={e('status')}>
-					<select {...register('status')} {...fieldAria('c-status', e('status'))} className="field-input">
-						<option value="existing">Existing</option>
-						<option value="new">New</option>
-						<option value="modified">Modified</option>
-						<option value="removed">Removed</option>
-					</select>
-				</FormField>
+				</div>
+				<SelectField
+					form={form}
+					name="ratingA"
+					id="c-ratingA"
+					label="Breaker rating"
+					options={optionsOf(
+						BREAKER_RATINGS_A.filter((a) => a <= 200),
+						(a) => `${a} A`,
+					)}
+					numeric
+				/>
+				<SelectField
+					form={form}
+					name="poles"
+					id="c-poles"
+					label="Poles"
+					options={POLE_OPTIONS}
+					numeric
+					disabled={!isNew}
+				/>
+				<SelectField
+					form={form}
+					name="breakerType"
+					id="c-breakerType"
+					label="Breaker type"
+					options={optionsOf(BREAKER_TYPES, (t) => BREAKER_TYPE_LABELS[t])}
+				/>
+				<SelectField
+					form={form}
+					name="conductor.size"
+					id="c-size"
+					label="Conductor size (AWG)"
+					options={optionsOf(CONDUCTOR_SIZES, (s) => `${s} AWG`)}
+				/>
+				<SelectField
+					form={form}
+					name="conductor.material"
+					id="c-material"
+					label="Conductor material"
+					options={[
+						['cu', 'Copper'],
+						['al', 'Aluminum'],
+					]}
+				/>
+				<SelectField
+					form={form}
+					name="conductor.insulationC"
+					id="c-insulation"
+					label="Insulation rating"
+					options={TEMPERATURE_OPTIONS}
+					numeric
+				/>
+				<NumberField form={form} name="lengthFt" id="c-lengthFt" label="One-way length (ft)" />
+				<SelectField
+					form={form}
+					name="status"
+					id="c-status"
+					label="Status"
+					options={[
+						['existing', 'Existing'],
+						['new', 'New'],
+						['modified', 'Modified'],
+						['removed', 'Removed'],
+					]}
+				/>
 				<div className="flex flex-col justify-end gap-1 text-sm">
 					<label className="inline-flex items-center gap-2">
 						<input type="checkbox" {...register('gfciAtDevice')} className="h-4 w-4 accent-copper-600" /> GFCI

@@ -2,9 +2,12 @@ import { useCallback, useMemo, useState } from 'react';
 import { api, ApiError, messageOf } from '../../lib/client/api-client';
 import { computeTree, type CircuitRecord, type JobTree, type LoadRecord } from '../../lib/client/job-tree';
 import { useResource } from '../../lib/client/use-resource';
-import { circuitSchema, loadSchema } from '../../lib/electrical/schema';
+import { engineMessageInWords } from '../../lib/client/engine-messages';
+import { circuitDoc, loadDoc } from '../../lib/job-document';
+import { circuitSchema, loadSchema, type BreakerType } from '../../lib/electrical/schema';
 import { num } from '../../lib/electrical/format';
 import { positionsTaken } from '../../lib/electrical/positions';
+import { BREAKER_TYPE_LABELS } from '../../lib/schemas/circuit';
 import ConfirmDialog from '../ui/ConfirmDialog';
 import LoadState from '../ui/LoadState';
 import Notice from '../ui/Notice';
@@ -14,6 +17,7 @@ import type { CircuitFormInput, CircuitFormValues } from './editor-schema';
 import PanelGrid, { type GridBreaker } from './PanelGrid';
 import PanelTotals from './PanelTotals';
 import ConflictNotice from '../job/ConflictNotice';
+import FormField from '../auth/FormField';
 
 interface Props {
 	jobId: string;
@@ -22,38 +26,15 @@ interface Props {
 }
 
 function formValuesOf(c: CircuitRecord, loads: LoadRecord[]): CircuitFormInput {
+	const { id: _id, panelId: _panelId, ...circuit } = circuitDoc(c);
 	return {
-		position: c.position,
-		poles: c.poles,
-		ratingA: c.ratingA,
-		breakerType: c.breakerType,
-		conductor: { ...c.conductor },
-		lengthFt: c.lengthFt,
-		label: c.label,
-		roomIds: [...c.roomIds],
-		status: c.status,
-		multiwireWith: c.multiwireWith,
-		gfciAtDevice: c.gfciAtDevice,
-		afciAtDevice: c.afciAtDevice,
+		...circuit,
 		loads: loads
 			.filter((l) => l.circuitId === c.id)
-			.map((l) => ({
-				record: { id: l.id, version: l.version },
-				load: {
-					kind: l.kind,
-					description: l.description,
-					quantity: l.quantity,
-					va: l.va,
-					watts: l.watts,
-					hp: l.hp as never,
-					voltage: l.voltage,
-					continuous: l.continuous,
-					cordAndPlug: l.cordAndPlug,
-					status: l.status,
-					spaceHeating: l.spaceHeating,
-					roomIds: [...l.roomIds],
-				},
-			})),
+			.map((l) => {
+				const { id: _loadId, circuitId: _circuitId, ...load } = loadDoc(l);
+				return { record: { id: l.id, version: l.version }, load };
+			}),
 	};
 }
 
@@ -163,11 +144,25 @@ export default function PanelEditor({ jobId, panelId, initialCircuitId }: Props)
 		};
 	}, [t, panel, draft, selected, current, jobId, panelId]);
 	const engine = useMemo(() => (preview ? computeTree(preview) : null), [preview]);
-	// Engine messages name records by id; show circuits by position and label instead.
+	// Engine messages name records by id and by place in the job document; show circuits by
+	// position and label, and loads by their row in their circuit's loads table, instead.
+	const circuitWords = (c: CircuitRecord) =>
+		`${c.position} (“${c.label || 'unlabelled'}”)${c.panelId === panelId ? '' : ` in another panel`}`;
 	const named = (text: string) =>
-		text.replace(/"([0-9a-f-]{36}|__draft__)"/g, (all, id: string) => {
+		engineMessageInWords(text, (list, i) => {
+			if (list === 'circuits') {
+				const c = preview?.circuits[i];
+				return c && `Circuit ${circuitWords(c)}`;
+			}
+			if (list !== 'loads') return undefined;
+			const l = preview?.loads[i];
+			const c = l && preview?.circuits.find((x) => x.id === l.circuitId);
+			if (!l || !c) return undefined;
+			const row = preview.loads.filter((x) => x.circuitId === c.id).indexOf(l) + 1;
+			return `Circuit ${circuitWords(c)}, load ${row}`;
+		}).replace(/"([0-9a-f-]{36}|__draft__)"/g, (all, id: string) => {
 			const c = preview?.circuits.find((x) => x.id === id);
-			return c ? `${c.position} (“${c.label || 'unlabelled'}”)` : all;
+			return c ? circuitWords(c) : all;
 		});
 	const results = engine?.ok ? engine.results : null;
 	const panelResult = results?.panels.find((p) => p.panelId === panelId) ?? null;
@@ -425,7 +420,7 @@ export default function PanelEditor({ jobId, panelId, initialCircuitId }: Props)
 													['ratingA', 'Breaker (A)'],
 													['position', 'Position'],
 													['lengthFt', 'Length (ft)'],
-													['breakerType', 'Type'],
+													['breakerType', 'Type', (v) => BREAKER_TYPE_LABELS[v as BreakerType] ?? String(v)],
 													['loadsNow', 'Loads'],
 												]}
 												onReload={async () => {
@@ -441,10 +436,7 @@ export default function PanelEditor({ jobId, panelId, initialCircuitId }: Props)
 									moveControl={
 										current && (
 											<div className="flex flex-wrap items-end gap-2 border-t border-ink-100 pt-3">
-												<div>
-													<label htmlFor="move-to" className="field-label">
-														Move to…
-													</label>
+												<FormField id="move-to" label="Move to…">
 													<select
 														id="move-to"
 														value={moveTo}
@@ -458,7 +450,7 @@ export default function PanelEditor({ jobId, panelId, initialCircuitId }: Props)
 															</option>
 														))}
 													</select>
-												</div>
+												</FormField>
 												<button
 													type="button"
 													className="btn-quiet"

@@ -5,6 +5,7 @@ import { useResource } from '../../lib/client/use-resource';
 import ConfirmDialog from '../ui/ConfirmDialog';
 import LoadState from '../ui/LoadState';
 import Notice from '../ui/Notice';
+import FormField from '../auth/FormField';
 
 interface Sketch {
 	id: string;
@@ -94,10 +95,7 @@ export default function SketchesSection({ jobId, rooms }: Props) {
 				className="grid gap-3 rounded-md bg-ink-50 p-3 sm:grid-cols-[1.4fr_1.4fr_1fr_auto]"
 				aria-label="Upload sketches"
 			>
-				<div>
-					<label htmlFor="sketch-files" className="field-label">
-						Files (PNG, JPEG or PDF)
-					</label>
+				<FormField id="sketch-files" label="Files (PNG, JPEG or PDF)">
 					<input
 						id="sketch-files"
 						ref={fileRef}
@@ -107,11 +105,8 @@ export default function SketchesSection({ jobId, rooms }: Props) {
 						accept="image/png,image/jpeg,application/pdf"
 						className="block w-full text-sm file:mr-3 file:rounded-md file:border-0 file:bg-ink-800 file:px-3 file:py-2 file:text-sm file:font-semibold file:text-white"
 					/>
-				</div>
-				<div>
-					<label htmlFor="sketch-caption" className="field-label">
-						Caption
-					</label>
+				</FormField>
+				<FormField id="sketch-caption" label="Caption">
 					<input
 						id="sketch-caption"
 						value={caption}
@@ -120,11 +115,8 @@ export default function SketchesSection({ jobId, rooms }: Props) {
 						className="field-input"
 						placeholder="First floor, kitchen wall elevations"
 					/>
-				</div>
-				<div>
-					<label htmlFor="sketch-room" className="field-label">
-						Room (optional)
-					</label>
+				</FormField>
+				<FormField id="sketch-room" label="Room (optional)">
 					<select
 						id="sketch-room"
 						value={roomId}
@@ -138,7 +130,7 @@ export default function SketchesSection({ jobId, rooms }: Props) {
 							</option>
 						))}
 					</select>
-				</div>
+				</FormField>
 				<div className="sm:pt-6">
 					<button type="submit" className="btn-primary" disabled={uploading}>
 						{uploading ? 'Uploading…' : 'Upload'}

@@ -3,7 +3,13 @@ import { AppError, errors } from '../errors';
 import type { CircuitSave, CircuitWithLoadsInput } from '../schemas/circuit';
 import type { LoadInput } from '../schemas/load';
 import { recordAudit, type AuditInput } from './audit';
-import { assertMultiwirePartner, assertPositionFree, getCircuit, lockPanel } from './circuits';
+import {
+	assertMultiwirePartner,
+	assertPositionFree,
+	getCircuit,
+	lockPanel,
+	mergeCircuitChanges,
+} from './circuits';
 import { consistencyGuard } from './consistency';
 import { assertRoomsOfJob, setRoomLinks } from './jobs';
 import { listLoadsOfCircuits } from './loads';
@@ -110,15 +116,7 @@ export async function saveCircuitWithLoads(
 		const stale = staleness(before, loadsBefore, version, items, deleteLoads);
 		if (stale) throw errors.conflict(stale, { circuit: before, loads: loadsBefore });
 
-		const merged = {
-			...before,
-			...Object.fromEntries(Object.entries(fields).filter(([, v]) => v !== undefined)),
-		} as CircuitRecord;
-		if (fields.roomIds) await assertRoomsOfJob(trx, before.jobId, fields.roomIds);
-		if (fields.multiwireWith !== undefined)
-			await assertMultiwirePartner(trx, before.jobId, merged.multiwireWith);
-		if (merged.position !== before.position || merged.poles !== before.poles)
-			await assertPositionFree(trx, panel, merged.position, merged.poles, id);
+		const merged = await mergeCircuitChanges(trx, panel, before, fields);
 		for (const [i, l] of items.entries())
 			await under(`loads.${i}.`, () => assertRoomsOfJob(trx, before.jobId, l.roomIds));
 

@@ -118,6 +118,41 @@ export async function assertMultiwirePartner(
 		});
 }
 
+/** Locks a circuit's panel, then the circuit at the version the client read (404 when gone, 409 when stale). */
+async function lockCircuitAndPanel(
+	trx: Knex.Transaction,
+	id: string,
+	version: number,
+): Promise<{ panel: PanelRecord; before: CircuitRecord }> {
+	const current = await getCircuit(trx, id);
+	if (!current) throw errors.notFound('circuit');
+	const panel = (await lockPanel(trx, current.panelId))!;
+	const before = await lockVersion(trx, 'circuits', id, version, () => getCircuit(trx, id), 'circuit');
+	return { panel, before };
+}
+
+/**
+ * The circuit with the fields given (undefined ones left as they are), after checking its rooms,
+ * its multiwire partner and, when position or poles change, the positions it would take.
+ */
+export async function mergeCircuitChanges(
+	trx: Knex.Transaction,
+	panel: PanelRecord,
+	before: CircuitRecord,
+	fields: Omit<CircuitPatch, 'version'>,
+): Promise<CircuitRecord> {
+	const merged = {
+		...before,
+		...Object.fromEntries(Object.entries(fields).filter(([, v]) => v !== undefined)),
+	} as CircuitRecord;
+	if (fields.roomIds) await assertRoomsOfJob(trx, before.jobId, fields.roomIds);
+	if (fields.multiwireWith !== undefined)
+		await assertMultiwirePartner(trx, before.jobId, merged.multiwireWith);
+	if (merged.position !== before.position || merged.poles !== before.poles)
+		await assertPositionFree(trx, panel, merged.position, merged.poles, before.id);
+	return merged;
+}
+
 /** Changes a circuit (position and poles included, checked like a move); a stale version is a 409. */
 export async function updateCircuit(
 	knex: Knex,
@@ -126,28 +161,9 @@ export async function updateCircuit(
 	patch: CircuitPatch,
 ): Promise<CircuitRecord> {
 	return inTransaction(knex, async (trx) => {
-		const current = await getCircuit(trx, id);
-		if (!current) throw errors.notFound('circuit');
-		const panel = (await lockPanel(trx, current.panelId))!;
-		const before = await lockVersion(
-			trx,
-			'circuits',
-			id,
-			patch.version,
-			() => getCircuit(trx, id),
-			'circuit',
-		);
+		const { panel, before } = await lockCircuitAndPanel(trx, id, patch.version);
 		const { version: _v, ...fields } = patch;
-		const merged = {
-			...before,
-			...Object.fromEntries(Object.entries(fields).filter(([, v]) => v !== undefined)),
-		} as CircuitRecord;
-		if (fields.roomIds) await assertRoomsOfJob(trx, before.jobId, fields.roomIds);
-		if (fields.multiwireWith !== undefined)
-			await assertMultiwirePartner(trx, before.jobId, merged.multiwireWith);
-		if (merged.position !== before.position || merged.poles !== before.poles) {
-			await assertPositionFree(trx, panel, merged.position, merged.poles, id);
-		}
+		const merged = await mergeCircuitChanges(trx, panel, before, fields);
 		const guard = await consistencyGuard(trx, before.jobId);
 		await trx('circuits')
 			.where({ id })
@@ -177,10 +193,7 @@ export async function moveCircuit(
 	version: number,
 ): Promise<CircuitRecord> {
 	return inTransaction(knex, async (trx) => {
-		const current = await getCircuit(trx, id);
-		if (!current) throw errors.notFound('circuit');
-		const panel = (await lockPanel(trx, current.panelId))!;
-		const before = await lockVersion(trx, 'circuits', id, version, () => getCircuit(trx, id), 'circuit');
+		const { panel, before } = await lockCircuitAndPanel(trx, id, version);
 		await assertPositionFree(trx, panel, position, before.poles, id);
 		await trx('circuits')
 			.where({ id })

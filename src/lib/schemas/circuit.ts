@@ -1,7 +1,16 @@
 import { z } from 'zod';
-import { circuitSchema } from '../electrical/schema';
+import { circuitSchema, type BreakerType } from '../electrical/schema';
 import { deleteSchema, patchOf, roomIdsSchema, uuidSchema, versionSchema } from './common';
 import { circuitLoadItemSchema, loadInputSchema } from './load';
+
+/** How the screens name each breaker type. */
+export const BREAKER_TYPE_LABELS: Record<BreakerType, string> = {
+	standard: 'Standard',
+	afci: 'AFCI',
+	gfci: 'GFCI',
+	'dual-function': 'Dual-function (AFCI + GFCI)',
+	gfpe: 'GFPE (equipment)',
+};
 
 /** What the circuit form sends (the engine's circuit without its id and panel, which the URL gives). */
 export const circuitInputSchema = circuitSchema.omit({ id: true, panelId: true }).extend({
