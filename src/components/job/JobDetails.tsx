@@ -8,6 +8,7 @@ import { JOB_STATUS_LABELS, jobPatchSchema, type JobStatus } from '../../lib/sch
 import { formErrorMessage } from '../jobs/form-helpers';
 import JobFields, { JOB_FIELD_NAMES as FIELDS, VOLTAGE_LABELS } from '../jobs/JobFields';
 import StatusTag from '../jobs/StatusTag';
+import ConfirmDialog from '../ui/ConfirmDialog';
 import Notice from '../ui/Notice';
 import ConflictNotice from './ConflictNotice';
 
@@ -31,6 +32,8 @@ export default function JobDetails({ job, onSaved, onReload }: Props) {
 	const [editing, setEditing] = useState(false);
 	const [message, setMessage] = useState<string | null>(null);
 	const [conflict, setConflict] = useState<Record<string, unknown> | null>(null);
+	const [confirmDelete, setConfirmDelete] = useState(false);
+	const [deleting, setDeleting] = useState(false);
 	const form = useForm<Input, unknown, Output>({
 		resolver: zodResolver(jobPatchSchema),
 		values: valuesOf(job),
@@ -58,6 +61,25 @@ export default function JobDetails({ job, onSaved, onReload }: Props) {
 		}
 	});
 
+	const deleteJob = async () => {
+		setDeleting(true);
+		setMessage(null);
+		try {
+			await api(`/api/jobs/${job.id}`, { method: 'DELETE', body: { version: job.version } });
+			window.location.href = '/contractor/jobs?deleted=1';
+		} catch (err) {
+			setConfirmDelete(false);
+			setDeleting(false);
+			if (err instanceof ApiError && err.status === 409) {
+				setMessage(
+					'Someone else changed this job since you opened it. Reload it and delete again if you still mean to.',
+				);
+				return;
+			}
+			setMessage(err instanceof Error ? err.message : 'The job could not be deleted. Please try again.');
+		}
+	};
+
 	if (!editing) {
 		const rows: [string, string][] = [
 			['Address', job.address || '—'],
@@ -77,10 +99,33 @@ export default function JobDetails({ job, onSaved, onReload }: Props) {
 			<div data-testid="job-details">
 				<div className="flex flex-wrap items-center justify-between gap-2">
 					<StatusTag status={job.status} />
-					<button type="button" className="btn-quiet" onClick={() => setEditing(true)}>
-						Edit the job details
-					</button>
+					<div className="flex flex-wrap gap-2">
+						<button type="button" className="btn-quiet" onClick={() => setEditing(true)}>
+							Edit the job details
+						</button>
+						<button
+							type="button"
+							className="btn-quiet text-signal-violation"
+							onClick={() => setConfirmDelete(true)}
+						>
+							Delete the job…
+						</button>
+					</div>
 				</div>
+				{message && (
+					<div className="mt-3">
+						<Notice tone="error">{message}</Notice>
+					</div>
+				)}
+				<ConfirmDialog
+					open={confirmDelete}
+					title={`Delete “${job.name}”?`}
+					body="The job, its rooms, panelboards, circuits and loads leave your firm's lists. The change history is kept."
+					confirmLabel="Delete the job"
+					busy={deleting}
+					onConfirm={deleteJob}
+					onCancel={() => setConfirmDelete(false)}
+				/>
 				<dl className="mt-3 grid gap-x-6 gap-y-2 sm:grid-cols-2 lg:grid-cols-3">
 					{rows.map(([k, v]) => (
 						<div key={k}>
