@@ -12,6 +12,8 @@ export interface BenchFigure {
 	medianMs: number;
 	/** 95th percentile (nearest rank), where measured. */
 	p95Ms?: number;
+	/** Median CPU time of this process (user + system, all threads) per run, where measured: steadier than wall time on a busy machine. */
+	cpuMedianMs?: number;
 	minMs: number;
 	maxMs: number;
 	runs: number;
@@ -138,21 +140,30 @@ function percentile(xs: number[], p: number): number {
 
 const ms = (x: number) => Math.round(x * 100) / 100;
 
-/** Median, p95, min and max of `runs` timed calls after `warmup` untimed ones (the JIT and the heap settle). */
+/**
+ * Median, p95, min and max of `runs` timed calls after `warmup` untimed ones (the JIT and the heap
+ * settle), with the median CPU time per call.
+ */
 function time(name: string, runs: number, fn: () => void, targetMs?: number, warmup = 5): BenchFigure {
 	for (let i = 0; i < warmup; i++) fn();
 	const t: number[] = [];
+	const cpu: number[] = [];
 	for (let i = 0; i < runs; i++) {
+		const c = process.cpuUsage();
 		const a = performance.now();
 		fn();
 		t.push(performance.now() - a);
+		const d = process.cpuUsage(c);
+		cpu.push((d.user + d.system) / 1000);
 	}
 	const p95 = ms(percentile(t, 95));
+	const cpuMedian = ms(median(cpu));
 	const f: BenchFigure = {
-		// scripts/bench.ts prints name, median, min and max: the p95 goes in the name so it is printed too.
-		name: `${name} [p95 ${p95} ms]`,
+		// scripts/bench.ts prints name, median, min and max: p95 and CPU go in the name so they are printed too.
+		name: `${name} [p95 ${p95} ms, CPU median ${cpuMedian} ms]`,
 		medianMs: ms(median(t)),
 		p95Ms: p95,
+		cpuMedianMs: cpuMedian,
 		minMs: ms(Math.min(...t)),
 		maxMs: ms(Math.max(...t)),
 		runs,

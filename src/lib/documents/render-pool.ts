@@ -9,7 +9,18 @@ import { createRequire } from 'node:module';
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
+import type { DocumentData } from './types';
 import { renderHere, type RenderRequest } from './render-document';
+
+/**
+ * A request as it crosses to the worker: without the engine's result, whose texts are getters that
+ * structured clone drops. The worker computes the result again from the document (plain data).
+ */
+export type WorkerRequest = RenderRequest extends infer R
+	? R extends { data: DocumentData }
+		? Omit<R, 'data'> & { data: Omit<DocumentData, 'result'> }
+		: never
+	: never;
 
 interface Pending {
 	resolve: (bytes: Uint8Array) => void;
@@ -103,7 +114,9 @@ export async function renderDocument(request: RenderRequest): Promise<Uint8Array
 			reject(new Error('rendering took too long'));
 		}, TIMEOUT_MS);
 		pending.set(id, { resolve, reject, timer });
-		w.postMessage({ id, request });
+		const { result: _result, ...data } = request.data;
+		const message: { id: number; request: WorkerRequest } = { id, request: { ...request, data } };
+		w.postMessage(message);
 	});
 }
 

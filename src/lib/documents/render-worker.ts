@@ -2,8 +2,10 @@
 import { parentPort } from 'node:worker_threads';
 import { Page, Text } from '@react-pdf/renderer';
 import { createElement } from 'react';
+import { computeJob } from '../electrical';
 import { renderSheets } from './assemble';
 import { renderHere, type RenderRequest } from './render-document';
+import type { WorkerRequest } from './render-pool';
 
 async function warmUp(): Promise<void> {
 	await renderSheets(
@@ -13,9 +15,11 @@ async function warmUp(): Promise<void> {
 	);
 }
 
-parentPort?.on('message', async (msg: { id: number; request: RenderRequest }) => {
+parentPort?.on('message', async (msg: { id: number; request: WorkerRequest }) => {
 	try {
-		const bytes = await renderHere(msg.request);
+		const data = msg.request.data;
+		const request = { ...msg.request, data: { ...data, result: computeJob(data.doc) } } as RenderRequest;
+		const bytes = await renderHere(request);
 		const copy = new Uint8Array(bytes);
 		parentPort!.postMessage({ id: msg.id, ok: true, bytes: copy }, [copy.buffer]);
 	} catch (err) {

@@ -1,6 +1,14 @@
 /** computeJob: every check of a job document in one pass over its records. */
-import { checkCircuit, circuitName, emptyStats } from './circuit-checks';
-import type { CircuitLoadStats, CircuitResult, FeederLoad } from './circuit-checks';
+import {
+	CircuitTexts,
+	TEXT_NUMBERS,
+	checkCircuit,
+	circuitName,
+	emptyStats,
+	totalDropNoteText,
+	totalDropText,
+} from './circuit-checks';
+import type { CircuitContext, CircuitLoadStats, CircuitResult, FeederLoad } from './circuit-checks';
 import {
 	addLoad,
 	ampsFigures,
@@ -13,7 +21,7 @@ import {
 	standardMethod,
 } from './dwelling';
 import type { GeneralLoadOptions, LoadBucket, Supply } from './dwelling';
-import { fig, finding, num, q, roundTo } from './format';
+import { fig, figOf, finding, findingOf, num, q, roundTo } from './format';
 import { isContinuous, isMotor, unitVA } from './load-values';
 import { circuitVoltage, legOf, legsOf, positionsTaken, rowOf, sideOf } from './positions';
 import { isReceptacleLoad, protectionFindings, requiredCircuitFindings } from './protection';
@@ -21,7 +29,7 @@ import type { RequiredCircuitFacts } from './protection';
 import type { Circuit, JobDocument, Load, Panel, Room, VoltageSystem } from './schema';
 import { COMMON_PRACTICE, section } from './sections';
 import { MIN_SERVICE_ONE_FAMILY_A, nextStandardRatingA } from './tables';
-import type { Edition, Figure, Finding, Leg, Line, Severity } from './types';
+import type { Edition, Figure, Finding, Leg, Line, Severity, Target } from './types';
 
 export interface PositionSlot {
 	position: number;
@@ -112,6 +120,135 @@ export interface JobResult {
 	summary: Record<Severity, number>;
 }
 
+/** Clears the load statistics for the next circuit. */
+function resetStats(s: CircuitLoadStats): void {
+	s.count = 0;
+	s.connectedVA = 0;
+	s.continuousVA = 0;
+	s.largestMotorVA = 0;
+	s.hasGeneralOutlets = false;
+	s.hasReceptacles = false;
+	s.fastenedVA = 0;
+	s.largestCordVA = 0;
+	s.motorOrAcOnly = true;
+	s.otherVoltages = null;
+	if (s.cookingKW.length > 0) s.cookingKW = [];
+	s.onlyCooking = true;
+}
+
+/** Everything computeJob keeps while it checks the circuits one by one. */
+interface CircuitPass {
+	ed: Edition;
+	ctx: CircuitContext;
+	numbers: Float64Array;
+	textsAt: CircuitTexts[];
+	resultAt: (CircuitResult | undefined)[];
+	loadsAt: (Load[] | undefined)[];
+	stats: CircuitLoadStats;
+	facts: RequiredCircuitFacts;
+	panelFedBy: ReadonlyMap<string, string>;
+	work: ReadonlyMap<string, PanelWork>;
+	roomsById: ReadonlyMap<string, Room>;
+	circuitResults: Map<string, CircuitResult>;
+}
+
+const noLoads: Load[] = [];
+
+/** Checks circuit `c` (at `index` in doc.circuits) of panel `w` and adds its loads to the panel's. */
+function runCircuit(
+	s: CircuitPass,
+	w: PanelWork,
+	legIndex: readonly Leg[],
+	places: Map<number, { positions: number[]; legs: Leg[] }>,
+	c: Circuit,
+	index: number,
+): void {
+	const { ed, ctx, numbers, textsAt, resultAt, loadsAt, stats, facts, panelFedBy, work, roomsById } = s;
+	const p = w.panel;
+	const t = new CircuitTexts(c.id, c.position, c.label, numbers, index * TEXT_NUMBERS);
+	t.ratingA = c.ratingA;
+	textsAt[index] = t;
+	const loads = loadsAt[index] ?? noLoads;
+	t.loads = loads;
+	const v = circuitVoltage(c.poles, p.voltageSystem);
+	resetStats(stats);
+	let firstSA = true;
+	let firstLaundry = true;
+	let hasReceptacle = false;
+	for (const l of loads) {
+		const each = unitVA(l);
+		const total = each * l.quantity;
+		stats.count++;
+		stats.connectedVA += total;
+		if (isContinuous(l)) stats.continuousVA += total;
+		if (isMotor(l) && each > stats.largestMotorVA) stats.largestMotorVA = each;
+		const general =
+			l.kind === 'lighting' ||
+			l.kind === 'receptacles' ||
+			l.kind === 'small-appliance' ||
+			l.kind === 'laundry';
+		if (general) stats.hasGeneralOutlets = true;
+		if (isReceptacleLoad(l)) {
+			stats.hasReceptacles = true;
+			hasReceptacle = true;
+		}
+		if (l.cordAndPlug && each > stats.largestCordVA) stats.largestCordVA = each;
+		if (!general && !l.cordAndPlug) stats.fastenedVA += total;
+		if (!(isMotor(l) || l.kind === 'hvac-cool' || l.kind === 'heat-pump')) stats.motorOrAcOnly = false;
+		if (l.voltage !== v && l.voltage !== 120) (stats.otherVoltages ??= new Set()).add(l.voltage);
+		if (l.kind === 'range') for (let i = 0; i < l.quantity; i++) stats.cookingKW.push(each / 1000);
+		else stats.onlyCooking = false;
+		const added = (l.status ?? (c.status === 'new' ? 'new' : 'existing')) === 'new';
+		const bucket = added ? w.own.added : w.own.existing;
+		const first = l.kind === 'small-appliance' ? firstSA : l.kind === 'laundry' ? firstLaundry : false;
+		addLoad(bucket, l, ed, first);
+		if (l.kind === 'small-appliance') firstSA = false;
+		if (l.kind === 'laundry') firstLaundry = false;
+	}
+	if (!firstSA) facts.smallAppliance.push(t);
+	if (!firstLaundry) facts.laundry.push(t);
+	if (hasReceptacle && c.poles === 1 && c.ratingA === 20) {
+		for (const r of c.roomIds) facts.receptacle20ARooms.add(r);
+		for (const l of loads)
+			if (isReceptacleLoad(l)) for (const r of l.roomIds) facts.receptacle20ARooms.add(r);
+	}
+
+	const subId = panelFedBy.get(c.id);
+	const sub = subId !== undefined ? work.get(subId) : undefined;
+	const feeder: FeederLoad | null = sub
+		? {
+				panelId: sub.panel.id,
+				panelName: sub.panel.name,
+				connectedVA: sub.connectedVA,
+				calculatedVA: sub.calculatedVA,
+				legAmps: sub.legAmps,
+			}
+		: null;
+	const key = c.position * 4 + c.poles;
+	let place = places.get(key);
+	if (!place) {
+		const positions = positionsTaken(c.position, c.poles);
+		place = { positions, legs: positions.map((pos) => legOf(pos, p.voltageSystem)) };
+		places.set(key, place);
+	}
+	const { positions, legs } = place;
+	const target = { kind: 'circuit', id: c.id } as const;
+	const r = checkCircuit(c, p, stats, ctx, feeder, legs, positions, t, target);
+	protectionFindings(c, loads, roomsById, ed, t, target, r.findings);
+	resultAt[index] = r;
+	if (sub) s.circuitResults.set(c.id, r);
+	w.connectedVA += r.connectedVA.value;
+	for (let i = 0; i < legs.length; i++) {
+		const li = legIndex.indexOf(legs[i] as Leg);
+		if (li >= 0) w.legAmps[li] = (w.legAmps[li] ?? 0) + (r.legAmps[i] ?? 0);
+	}
+}
+
+/** Finds a circuit of the job by id. */
+interface CircuitLookup {
+	get(id: string): Circuit | undefined;
+}
+
 const EXCLUDED_FROM_AREA = new Set(['garage', 'outdoor', 'attic', 'crawl-space']);
 
 function roomCounts(r: Room): boolean {
@@ -140,7 +277,7 @@ interface PanelWork {
 /** Runs every check on a validated job document. Pure: the same document always gives the same result. */
 export function computeJob(doc: JobDocument): JobResult {
 	const ed = doc.codeEdition;
-	const ctx = { edition: ed, terminalC: doc.terminalTemperatureC };
+	const ctx: CircuitContext = { edition: ed, terminalC: doc.terminalTemperatureC, figures: new Map() };
 	const jobId = doc.id ?? doc.name;
 	const roomsById = new Map<string, Room>();
 	for (const r of doc.rooms) roomsById.set(r.id, r);
@@ -162,11 +299,18 @@ export function computeJob(doc: JobDocument): JobResult {
 	const panelFedBy = new Map<string, string>(); // circuit id → sub panel id
 	for (const p of doc.panels) if (p.fedFromCircuitId !== null) panelFedBy.set(p.fedFromCircuitId, p.id);
 
-	const circuitsById = new Map<string, Circuit>();
+	// Circuits by id as their index in doc.circuits; loads by that index.
+	const indexById = new Map<string, number>();
+	const circuitsById: CircuitLookup = {
+		get: (id) => {
+			const i = indexById.get(id);
+			return i === undefined ? undefined : doc.circuits[i];
+		},
+	};
 	let existingDwelling = false;
 	for (let i = 0; i < doc.circuits.length; i++) {
 		const c = doc.circuits[i] as Circuit;
-		circuitsById.set(c.id, c);
+		indexById.set(c.id, i);
 		if (c.status === 'removed') continue;
 		if (c.status === 'existing' || c.status === 'modified') existingDwelling = true;
 		const w = work.get(c.panelId);
@@ -175,11 +319,13 @@ export function computeJob(doc: JobDocument): JobResult {
 			w.indexes.push(i);
 		}
 	}
-	const loadsByCircuit = new Map<string, Load[]>();
+	const loadsAt: (Load[] | undefined)[] = new Array(doc.circuits.length);
 	for (const l of doc.loads) {
-		const list = loadsByCircuit.get(l.circuitId);
+		const i = indexById.get(l.circuitId);
+		if (i === undefined) continue;
+		const list = loadsAt[i];
 		if (list) list.push(l);
-		else loadsByCircuit.set(l.circuitId, [l]);
+		else loadsAt[i] = [l];
 	}
 
 	// Panels children first, so a feeder circuit sees its subpanel's totals.
@@ -207,89 +353,41 @@ export function computeJob(doc: JobDocument): JobResult {
 	const facts: RequiredCircuitFacts = { smallAppliance: [], laundry: [], receptacle20ARooms: new Set() };
 	// Results by index in doc.circuits; feeders also by id, for their subpanels.
 	const resultAt: (CircuitResult | undefined)[] = new Array(doc.circuits.length);
-	const nameAt: string[] = new Array(doc.circuits.length);
+	const textsAt: CircuitTexts[] = new Array(doc.circuits.length);
+	const numbers = new Float64Array(doc.circuits.length * TEXT_NUMBERS);
+	// Positions and legs by first position and poles, shared by the circuits that take the same ones.
+	const placesBySystem = new Map<VoltageSystem, Map<number, { positions: number[]; legs: Leg[] }>>();
+	const stats: CircuitLoadStats = emptyStats();
 	const circuitResults = new Map<string, CircuitResult>();
 	const jobArea = floorArea(doc);
 	const soleRoot = roots.length === 1 ? roots[0] : undefined;
-	const noLoads: Load[] = [];
+	const pass: CircuitPass = {
+		ed,
+		ctx,
+		numbers,
+		textsAt,
+		resultAt,
+		loadsAt,
+		stats,
+		facts,
+		panelFedBy,
+		work,
+		roomsById,
+		circuitResults,
+	};
 
 	for (const panelId of postOrder) {
 		const w = work.get(panelId);
 		if (!w) continue;
 		const p = w.panel;
 		const legIndex = legsOf(p.voltageSystem);
+		let places = placesBySystem.get(p.voltageSystem);
+		if (!places) {
+			places = new Map();
+			placesBySystem.set(p.voltageSystem, places);
+		}
 		for (let k = 0; k < w.circuits.length; k++) {
-			const c = w.circuits[k] as Circuit;
-			const index = w.indexes[k] as number;
-			const name = circuitName(c);
-			nameAt[index] = name;
-			const loads = loadsByCircuit.get(c.id) ?? noLoads;
-			const v = circuitVoltage(c.poles, p.voltageSystem);
-			const stats: CircuitLoadStats = emptyStats();
-			let firstSA = true;
-			let firstLaundry = true;
-			let hasReceptacle = false;
-			for (const l of loads) {
-				const each = unitVA(l);
-				const total = each * l.quantity;
-				stats.count++;
-				stats.connectedVA += total;
-				if (stats.terms.length < 6) stats.terms.push(total);
-				if (isContinuous(l)) stats.continuousVA += total;
-				if (isMotor(l) && each > stats.largestMotorVA) stats.largestMotorVA = each;
-				const general =
-					l.kind === 'lighting' ||
-					l.kind === 'receptacles' ||
-					l.kind === 'small-appliance' ||
-					l.kind === 'laundry';
-				if (general) stats.hasGeneralOutlets = true;
-				if (isReceptacleLoad(l)) {
-					stats.hasReceptacles = true;
-					hasReceptacle = true;
-				}
-				if (l.cordAndPlug && each > stats.largestCordVA) stats.largestCordVA = each;
-				if (!general && !l.cordAndPlug) stats.fastenedVA += total;
-				if (!(isMotor(l) || l.kind === 'hvac-cool' || l.kind === 'heat-pump')) stats.motorOrAcOnly = false;
-				if (l.voltage !== v && l.voltage !== 120) (stats.otherVoltages ??= new Set()).add(l.voltage);
-				if (l.kind === 'range') for (let i = 0; i < l.quantity; i++) stats.cookingKW.push(each / 1000);
-				else stats.onlyCooking = false;
-				const added = (l.status ?? (c.status === 'new' ? 'new' : 'existing')) === 'new';
-				const bucket = added ? w.own.added : w.own.existing;
-				const first = l.kind === 'small-appliance' ? firstSA : l.kind === 'laundry' ? firstLaundry : false;
-				addLoad(bucket, l, ed, first);
-				if (l.kind === 'small-appliance') firstSA = false;
-				if (l.kind === 'laundry') firstLaundry = false;
-			}
-			if (!firstSA) facts.smallAppliance.push({ id: c.id, name, ratingA: c.ratingA });
-			if (!firstLaundry) facts.laundry.push({ id: c.id, name, ratingA: c.ratingA });
-			if (hasReceptacle && c.poles === 1 && c.ratingA === 20) {
-				for (const r of c.roomIds) facts.receptacle20ARooms.add(r);
-				for (const l of loads)
-					if (isReceptacleLoad(l)) for (const r of l.roomIds) facts.receptacle20ARooms.add(r);
-			}
-
-			const subId = panelFedBy.get(c.id);
-			const sub = subId !== undefined ? work.get(subId) : undefined;
-			const feeder: FeederLoad | null = sub
-				? {
-						panelId: sub.panel.id,
-						panelName: sub.panel.name,
-						connectedVA: sub.connectedVA,
-						calculatedVA: sub.calculatedVA,
-						legAmps: sub.legAmps,
-					}
-				: null;
-			const positions = positionsTaken(c.position, c.poles);
-			const legs = positions.map((pos) => legOf(pos, p.voltageSystem));
-			const r = checkCircuit(c, p, stats, ctx, feeder, legs, positions, name);
-			for (const f of protectionFindings(c, loads, roomsById, ed, name)) r.findings.push(f);
-			resultAt[index] = r;
-			if (sub) circuitResults.set(c.id, r);
-			w.connectedVA += r.connectedVA.value;
-			for (let i = 0; i < legs.length; i++) {
-				const li = legIndex.indexOf(legs[i] as Leg);
-				if (li >= 0) w.legAmps[li] = (w.legAmps[li] ?? 0) + (r.legAmps[i] ?? 0);
-			}
+			runCircuit(pass, w, legIndex, places, w.circuits[k] as Circuit, w.indexes[k] as number);
 		}
 		// Everything this panel supplies, for its calculated load.
 		const subtree = mergeBucket(cloneBucket(w.own.existing), w.own.added);
@@ -329,26 +427,21 @@ export function computeJob(doc: JobDocument): JobResult {
 		const r = resultAt[i];
 		if (!r) continue;
 		const c = doc.circuits[i] as Circuit;
-		const name = nameAt[i] as string;
+		const t = textsAt[i] as CircuitTexts;
 		const up = upstreamPct.get(r.panelId) ?? 0;
 		if (up > 0 && r.feedsPanelId === null) {
 			const branch = r.voltageDrop.percent.value;
 			const total = up + branch;
-			r.voltageDropTotal = fig(
-				roundTo(total, 3),
-				'%',
-				r.voltageDrop.percent.rule,
-				() => `feeders ${q(up, '%')} + branch ${q(branch, '%')} = ${q(total, '%')}`,
-			);
+			t.upstream = up;
+			t.branch = branch;
+			t.totalDrop = total;
+			r.voltageDropTotal = figOf(roundTo(total, 3), '%', r.voltageDrop.percent.rule, totalDropText, t);
 			if (total > 5) {
 				r.findings.push(
-					finding(
-						'note',
-						'voltage-drop-total',
-						() => `${name}: feeder and branch together drop ${q(total, '%')}, over the 5 % recommended.`,
-						r.voltageDrop.percent.rule,
-						{ kind: 'circuit', id: c.id },
-					),
+					findingOf('note', 'voltage-drop-total', totalDropNoteText, t, r.voltageDrop.percent.rule, {
+						kind: 'circuit',
+						id: c.id,
+					}),
 				);
 			}
 		}
@@ -390,7 +483,13 @@ export function computeJob(doc: JobDocument): JobResult {
 	const protection = requiredCircuitFindings(facts, doc.rooms, ed, existingDwelling, jobId);
 	const served = new Set<string>();
 	for (const c of doc.circuits) if (c.status !== 'removed') for (const r of c.roomIds) served.add(r);
-	for (const l of doc.loads) for (const r of l.roomIds) served.add(r);
+	let lastRoom: string | undefined;
+	for (const l of doc.loads)
+		for (const r of l.roomIds)
+			if (r !== lastRoom) {
+				served.add(r);
+				lastRoom = r;
+			}
 	for (const room of doc.rooms) {
 		if (!served.has(room.id)) {
 			protection.push(
@@ -418,8 +517,21 @@ export function computeJob(doc: JobDocument): JobResult {
 	for (const p of panels) for (const f of p.findings) findings.push(f);
 	for (const f of protection) findings.push(f);
 	for (const f of service.findings) findings.push(f);
-	const summary: Record<Severity, number> = { ok: 0, note: 0, warning: 0, violation: 0 };
-	for (const f of findings) summary[f.severity]++;
+	let ok = 0;
+	let note = 0;
+	let warning = 0;
+	for (const f of findings) {
+		const s = f.severity;
+		if (s === 'ok') ok++;
+		else if (s === 'note') note++;
+		else if (s === 'warning') warning++;
+	}
+	const summary: Record<Severity, number> = {
+		ok,
+		note,
+		warning,
+		violation: findings.length - ok - note - warning,
+	};
 
 	return {
 		job: {
@@ -472,7 +584,7 @@ function panelResult(
 	w: PanelWork,
 	calculation: Line[],
 	ed: Edition,
-	circuitsById: ReadonlyMap<string, Circuit>,
+	circuitsById: CircuitLookup,
 	circuitResults: ReadonlyMap<string, CircuitResult>,
 ): PanelResult {
 	const p = w.panel;
@@ -489,37 +601,18 @@ function panelResult(
 		});
 	}
 	for (const c of w.circuits) {
-		const name = circuitName(c);
-		const ct = { kind: 'circuit', id: c.id } as const;
-		const taken = positionsTaken(c.position, c.poles);
-		const beyond = taken.filter((t) => t > p.spaces);
-		if (beyond.length > 0) {
-			findings.push(
-				finding(
-					'violation',
-					'position-beyond-spaces',
-					() =>
-						`${name} takes position ${beyond.join(', ')}, beyond the ${p.spaces} spaces of panel ${p.name}.`,
-					COMMON_PRACTICE,
-					ct,
-				),
-			);
+		const last = c.position + 2 * (c.poles - 1);
+		let ct: Target | null = null;
+		if (last > p.spaces) {
+			ct = { kind: 'circuit', id: c.id };
+			findings.push(beyondSpaces(c, p, ct));
 		}
-		for (const t of taken) {
+		for (let t = c.position; t <= last; t += 2) {
 			const slot = slots[t - 1];
 			if (!slot) continue;
 			if (slot.circuitId !== null) {
-				const other = circuitsById.get(slot.circuitId);
-				findings.push(
-					finding(
-						'violation',
-						'position-conflict',
-						() =>
-							`${name} and ${other ? circuitName(other) : slot.circuitId} both take position ${t} of panel ${p.name}.`,
-						COMMON_PRACTICE,
-						ct,
-					),
-				);
+				ct ??= { kind: 'circuit', id: c.id };
+				findings.push(positionConflict(c, circuitsById.get(slot.circuitId), slot.circuitId, t, p, ct));
 			} else slot.circuitId = c.id;
 		}
 		if (c.multiwireWith !== null && c.id < c.multiwireWith) {
@@ -717,6 +810,36 @@ function panelResult(
 		feederCircuitId,
 		findings,
 	};
+}
+
+function beyondSpaces(c: Circuit, p: Panel, target: Target): Finding {
+	const beyond = positionsTaken(c.position, c.poles).filter((t) => t > p.spaces);
+	return finding(
+		'violation',
+		'position-beyond-spaces',
+		() =>
+			`${circuitName(c)} takes position ${beyond.join(', ')}, beyond the ${p.spaces} spaces of panel ${p.name}.`,
+		COMMON_PRACTICE,
+		target,
+	);
+}
+
+function positionConflict(
+	c: Circuit,
+	other: Circuit | undefined,
+	otherId: string,
+	position: number,
+	p: Panel,
+	target: Target,
+): Finding {
+	return finding(
+		'violation',
+		'position-conflict',
+		() =>
+			`${circuitName(c)} and ${other ? circuitName(other) : otherId} both take position ${position} of panel ${p.name}.`,
+		COMMON_PRACTICE,
+		target,
+	);
 }
 
 function checkMultiwire(

@@ -49,89 +49,94 @@ export function q(value: number, unit: Unit, decimals = 2): string {
 /** Text, or a function returning it. */
 export type Text = string | (() => string);
 
+/** Writes a text from one argument: a module-level function, so that no closure is made per figure. */
+export type TextOf<T> = (arg: T) => string;
+
 /*
  * Figures and findings built from a function write their text when it is first read: a large job
- * has hundreds of thousands of them and most texts are never shown. The text is an own enumerable
- * accessor, so JSON, spread, structured clone (the documents worker) and Object.keys see the same
- * fields, in the same order, as a plain object. Texts must only use values fixed when they are built.
+ * has hundreds of thousands of them and most texts are never shown. The text is a getter on the
+ * class, and toJSON gives the plain object, fields in the same order, so JSON (the API, the CLI)
+ * is the same as for a plain object. Spread, Object.keys and structured clone do not see the text:
+ * hand results across threads as the document and compute them again there. Texts must only use
+ * values fixed when they are built.
  */
 
 class LazyFigure implements Figure {
-	declare value: number;
-	declare unit: Unit;
-	declare rule: string;
-	declare working: string;
-	#text: Text;
-	constructor(value: number, unit: Unit, rule: string, text: Text) {
-		this.#text = text;
+	value: number;
+	unit: Unit;
+	rule: string;
+	#text: string | TextOf<unknown>;
+	#arg: unknown;
+	constructor(value: number, unit: Unit, rule: string, text: string | TextOf<unknown>, arg: unknown) {
 		this.value = value;
 		this.unit = unit;
 		this.rule = rule;
-		Object.defineProperty(this, 'working', WORKING);
+		this.#text = text;
+		this.#arg = arg;
 	}
-	static read(f: LazyFigure): string {
-		const t = f.#text;
+	get working(): string {
+		const t = this.#text;
 		if (typeof t === 'string') return t;
-		const s = t();
-		f.#text = s;
+		const s = t(this.#arg);
+		this.#text = s;
+		this.#arg = undefined;
 		return s;
 	}
-	static write(f: LazyFigure, s: string): void {
-		f.#text = s;
+	toJSON(): Figure {
+		return { value: this.value, unit: this.unit, rule: this.rule, working: this.working };
 	}
 }
-const WORKING: PropertyDescriptor = {
-	get(this: LazyFigure) {
-		return LazyFigure.read(this);
-	},
-	set(this: LazyFigure, s: string) {
-		LazyFigure.write(this, s);
-	},
-	enumerable: true,
-	configurable: true,
-};
 
 class LazyFinding implements Finding {
-	declare severity: Severity;
-	declare code: string;
-	declare message: string;
-	declare rule: string;
-	declare target: Target;
-	#text: Text;
-	constructor(severity: Severity, code: string, text: Text, rule: string, target: Target) {
-		this.#text = text;
+	severity: Severity;
+	code: string;
+	rule: string;
+	target: Target;
+	#text: string | TextOf<unknown>;
+	#arg: unknown;
+	constructor(
+		severity: Severity,
+		code: string,
+		text: string | TextOf<unknown>,
+		arg: unknown,
+		rule: string,
+		target: Target,
+	) {
 		this.severity = severity;
 		this.code = code;
-		Object.defineProperty(this, 'message', MESSAGE);
 		this.rule = rule;
 		this.target = target;
+		this.#text = text;
+		this.#arg = arg;
 	}
-	static read(f: LazyFinding): string {
-		const t = f.#text;
+	get message(): string {
+		const t = this.#text;
 		if (typeof t === 'string') return t;
-		const s = t();
-		f.#text = s;
+		const s = t(this.#arg);
+		this.#text = s;
+		this.#arg = undefined;
 		return s;
 	}
-	static write(f: LazyFinding, s: string): void {
-		f.#text = s;
+	toJSON(): Finding {
+		return {
+			severity: this.severity,
+			code: this.code,
+			message: this.message,
+			rule: this.rule,
+			target: this.target,
+		};
 	}
 }
-const MESSAGE: PropertyDescriptor = {
-	get(this: LazyFinding) {
-		return LazyFinding.read(this);
-	},
-	set(this: LazyFinding, s: string) {
-		LazyFinding.write(this, s);
-	},
-	enumerable: true,
-	configurable: true,
-};
 
 /** Builds a figure; `working` may be a function returning the text, called when the text is first read. */
 export function fig(value: number, unit: Unit, rule: string, working: Text): Figure {
 	if (typeof working === 'string') return { value, unit, rule, working };
-	return new LazyFigure(value, unit, rule, working);
+	return new LazyFigure(value, unit, rule, working, undefined);
+}
+
+/** Builds a figure whose working `text(arg)` writes when first read. */
+export function figOf<T>(value: number, unit: Unit, rule: string, text: TextOf<T>, arg: T): Figure {
+	return new LazyFigure(value, unit, rule, text as TextOf<unknown>, arg);
 }
 
 /** Builds a worksheet line. */
@@ -155,5 +160,17 @@ export function finding(
 	target: Target,
 ): Finding {
 	if (typeof message === 'string') return { severity, code, message, rule, target };
-	return new LazyFinding(severity, code, message, rule, target);
+	return new LazyFinding(severity, code, message, undefined, rule, target);
+}
+
+/** Builds a finding whose message `text(arg)` writes when first read. */
+export function findingOf<T>(
+	severity: Severity,
+	code: string,
+	text: TextOf<T>,
+	arg: T,
+	rule: string,
+	target: Target,
+): Finding {
+	return new LazyFinding(severity, code, text as TextOf<unknown>, arg, rule, target);
 }

@@ -1,14 +1,15 @@
 /** GFCI and AFCI requirements by room type and edition (210.8(A), 210.12), and the required dwelling circuits (210.11(C)). */
-import { finding } from './format';
+import type { CircuitTexts } from './circuit-checks';
+import { nameOf } from './circuit-checks';
+import { finding, findingOf } from './format';
 import type { Circuit, Load, Room, RoomType } from './schema';
 import { section } from './sections';
-import type { Edition, Finding } from './types';
-
-const RECEPTACLE_KINDS = new Set(['receptacles', 'small-appliance', 'laundry']);
+import type { Edition, Finding, Target } from './types';
 
 /** Whether a load is supplied through a receptacle outlet. */
 export function isReceptacleLoad(load: Load): boolean {
-	return RECEPTACLE_KINDS.has(load.kind) || load.cordAndPlug;
+	const k = load.kind;
+	return k === 'receptacles' || k === 'small-appliance' || k === 'laundry' || load.cordAndPlug;
 }
 
 /** Rooms whose outlets need AFCI protection on 120 V 15/20 A circuits (210.12(A) 2017/2020, 210.12(B) 2023). */
@@ -55,64 +56,91 @@ export function hasAfci(c: Circuit): boolean {
 	return c.breakerType === 'afci' || c.breakerType === 'dual-function' || c.afciAtDevice;
 }
 
-/** GFCI and AFCI findings for one circuit. */
+const roomList = (rooms: readonly Room[]) => rooms.map((r) => `${r.name} (${r.type})`).join(', ');
+/** The rooms of `t.roomIds` that need AFCI protection. */
+function afciRoomsOf(t: CircuitTexts): Room[] {
+	const where: Room[] = [];
+	for (const id of t.roomIds) {
+		const room = t.rooms?.get(id);
+		if (room && afciRoom(room.type)) where.push(room);
+	}
+	return where;
+}
+const gfciOkText = (t: CircuitTexts) =>
+	`${nameOf(t)} has GFCI protection for receptacles in ${roomList(t.gfciRooms)}.`;
+const afciOkText = (t: CircuitTexts) =>
+	`${nameOf(t)} has AFCI protection for outlets in ${roomList(afciRoomsOf(t))}.`;
+const afciDeviceText = (t: CircuitTexts) =>
+	`${nameOf(t)} relies on an outlet branch-circuit AFCI device; permitted only under the conditions listed in ${t.afciRule} (wiring method and length to the first outlet).`;
+const afciMissingText = (t: CircuitTexts) =>
+	`${nameOf(t)} supplies outlets in ${roomList(afciRoomsOf(t))} without AFCI protection.`;
+const afciMissingExistingText = (t: CircuitTexts) =>
+	`${nameOf(t)} supplies outlets in ${roomList(afciRoomsOf(t))} without AFCI protection; an existing circuit, required when it is extended or modified.`;
+
+/** Adds the GFCI and AFCI findings of one circuit to `out`. */
 export function protectionFindings(
 	c: Circuit,
 	loads: readonly Load[],
 	roomsById: ReadonlyMap<string, Room>,
 	edition: Edition,
-	name: string,
-): Finding[] {
-	const out: Finding[] = [];
-	const target = { kind: 'circuit', id: c.id } as const;
-	if (c.poles === 3) return out;
+	t: CircuitTexts,
+	target: Target,
+	out: Finding[],
+): void {
+	if (c.poles === 3) return;
 	// Room lists are short: arrays kept in first-seen order, as a Set would be, cost less than Sets.
-	const roomIds: string[] = [];
-	for (const r of c.roomIds) if (!roomIds.includes(r)) roomIds.push(r);
-	for (const l of loads) for (const r of l.roomIds) if (!roomIds.includes(r)) roomIds.push(r);
-	if (roomIds.length === 0) return out;
+	// Most circuits and their loads name the same one room: the list is made only when they differ.
+	let roomIds: readonly string[] = c.roomIds;
+	let own = false;
+	for (const l of loads)
+		for (const r of l.roomIds)
+			if (!roomIds.includes(r)) {
+				if (!own) {
+					roomIds = dedupe(c.roomIds);
+					own = true;
+				}
+				(roomIds as string[]).push(r);
+			}
+	if (!own && hasDuplicates(roomIds)) roomIds = dedupe(roomIds);
+	if (roomIds.length === 0) return;
 	// Receptacles are placed by their own rooms where recorded, else by the circuit's rooms.
-	const receptacleRooms: string[] = [];
 	let receptacleLoads = 0;
 	let countertop = false;
 	for (const l of loads) {
 		if (!isReceptacleLoad(l)) continue;
 		receptacleLoads++;
 		if (l.kind === 'small-appliance') countertop = true;
-		for (const r of l.roomIds.length > 0 ? l.roomIds : c.roomIds)
-			if (!receptacleRooms.includes(r)) receptacleRooms.push(r);
 	}
 	const existing = c.status === 'existing';
 
 	// GFCI: receptacles; 2017 only 125 V 15/20 A, from 2020 125–250 V on single-phase circuits.
 	const gfciVoltageOk = edition === '2017' ? c.poles === 1 && c.ratingA <= 20 : true;
 	if (receptacleLoads > 0 && gfciVoltageOk) {
+		const receptacleRooms: string[] = [];
+		for (const l of loads) {
+			if (!isReceptacleLoad(l)) continue;
+			for (const r of l.roomIds.length > 0 ? l.roomIds : c.roomIds)
+				if (!receptacleRooms.includes(r)) receptacleRooms.push(r);
+		}
 		let need: GfciNeed = 'no';
-		const where: string[] = [];
+		const where: Room[] = [];
 		for (const id of receptacleRooms) {
 			const room = roomsById.get(id);
 			if (!room) continue;
 			const n = gfciNeed(room.type, edition, countertop);
 			if (n === 'no') continue;
-			where.push(`${room.name} (${room.type})`);
+			where.push(room);
 			if (n === 'required' || need === 'no') need = n;
 		}
 		const rule = section('gfci', edition);
 		if (need !== 'no') {
 			if (hasGfci(c)) {
-				out.push(
-					finding(
-						'ok',
-						'gfci-required',
-						() => `${name} has GFCI protection for receptacles in ${where.join(', ')}.`,
-						rule,
-						target,
-					),
-				);
+				t.gfciRooms = where;
+				out.push(findingOf('ok', 'gfci-required', gfciOkText, t, rule, target));
 			} else {
 				const sev = existing ? 'note' : need === 'if-unfinished' ? 'warning' : 'violation';
 				const msg =
-					`${name} supplies receptacles in ${where.join(', ')} without GFCI protection` +
+					`${nameOf(t)} supplies receptacles in ${roomList(where)} without GFCI protection` +
 					(need === 'if-unfinished' ? '; required if the basement is unfinished' : '') +
 					(existing ? '; an existing circuit, required when it is extended or modified' : '') +
 					'.';
@@ -124,42 +152,31 @@ export function protectionFindings(
 	// AFCI: 120 V, 15 and 20 A circuits (10 A from 2023) supplying outlets or devices in the listed rooms.
 	const afciRatings = edition === '2023' ? c.ratingA <= 20 : c.ratingA === 15 || c.ratingA === 20;
 	if (c.poles === 1 && afciRatings) {
-		const where: string[] = [];
+		let any = false;
 		for (const id of roomIds) {
 			const room = roomsById.get(id);
-			if (room && afciRoom(room.type)) where.push(`${room.name} (${room.type})`);
+			if (room && afciRoom(room.type)) {
+				any = true;
+				break;
+			}
 		}
-		if (where.length > 0) {
+		if (any) {
 			const rule = section('afci', edition);
+			t.roomIds = roomIds;
+			t.rooms = roomsById;
+			t.afciRule = rule;
+			const x = t;
 			if (c.breakerType === 'afci' || c.breakerType === 'dual-function') {
-				out.push(
-					finding(
-						'ok',
-						'afci-required',
-						() => `${name} has AFCI protection for outlets in ${where.join(', ')}.`,
-						rule,
-						target,
-					),
-				);
+				out.push(findingOf('ok', 'afci-required', afciOkText, x, rule, target));
 			} else if (c.afciAtDevice) {
-				out.push(
-					finding(
-						'note',
-						'afci-required',
-						() =>
-							`${name} relies on an outlet branch-circuit AFCI device; permitted only under the conditions listed in ${rule} (wiring method and length to the first outlet).`,
-						rule,
-						target,
-					),
-				);
+				out.push(findingOf('note', 'afci-required', afciDeviceText, x, rule, target));
 			} else {
 				out.push(
-					finding(
+					findingOf(
 						existing ? 'note' : 'violation',
 						'afci-required',
-						() =>
-							`${name} supplies outlets in ${where.join(', ')} without AFCI protection` +
-							(existing ? '; an existing circuit, required when it is extended or modified.' : '.'),
+						existing ? afciMissingExistingText : afciMissingText,
+						x,
 						rule,
 						target,
 					),
@@ -167,13 +184,23 @@ export function protectionFindings(
 			}
 		}
 	}
+}
+
+function hasDuplicates(ids: readonly string[]): boolean {
+	for (let i = 1; i < ids.length; i++) if (ids.indexOf(ids[i] as string) < i) return true;
+	return false;
+}
+
+function dedupe(ids: readonly string[]): string[] {
+	const out: string[] = [];
+	for (const r of ids) if (!out.includes(r)) out.push(r);
 	return out;
 }
 
 /** Per-circuit facts the required-circuit checks need, gathered in the main pass. */
 export interface RequiredCircuitFacts {
-	smallAppliance: { id: string; name: string; ratingA: number }[];
-	laundry: { id: string; name: string; ratingA: number }[];
+	smallAppliance: CircuitTexts[];
+	laundry: CircuitTexts[];
 	/** 120 V 20 A circuits with receptacles, by room id served. */
 	receptacle20ARooms: Set<string>;
 }
@@ -198,7 +225,7 @@ export function requiredCircuitFindings(
 					'violation',
 					'small-appliance-rating',
 					() =>
-						`${c.name} supplies small-appliance receptacles but is rated ${c.ratingA} A; these circuits are 20 A.`,
+						`${nameOf(c)} supplies small-appliance receptacles but is rated ${c.ratingA} A; these circuits are 20 A.`,
 					section('requiredSmallAppliance', edition),
 					{ kind: 'circuit', id: c.id },
 				),
@@ -212,7 +239,7 @@ export function requiredCircuitFindings(
 					'violation',
 					'laundry-rating',
 					() =>
-						`${c.name} supplies the laundry receptacles but is rated ${c.ratingA} A; the laundry circuit is 20 A.`,
+						`${nameOf(c)} supplies the laundry receptacles but is rated ${c.ratingA} A; the laundry circuit is 20 A.`,
 					section('requiredLaundry', edition),
 					{ kind: 'circuit', id: c.id },
 				),

@@ -56,8 +56,15 @@ export function badValues(value: unknown, path = '$'): string[] {
 	if (value === undefined) return [path];
 	if (typeof value === 'number') return Number.isFinite(value) ? [] : [path];
 	if (Array.isArray(value)) return value.flatMap((v, i) => badValues(v, `${path}[${i}]`));
+	// Texts such as the working are written when first read: a NaN or undefined in them is just as bad.
+	if (typeof value === 'string') return /\bNaN\b|\bundefined\b|Infinity/.test(value) ? [path] : [];
 	if (value !== null && typeof value === 'object') {
-		return Object.entries(value).flatMap(([k, v]) => badValues(v, `${path}.${k}`));
+		// Figures and findings keep their texts in getters; toJSON gives every field as the API sends it.
+		const plain =
+			typeof (value as { toJSON?: unknown }).toJSON === 'function'
+				? (value as { toJSON(): unknown }).toJSON()
+				: value;
+		return Object.entries(plain as object).flatMap(([k, v]) => badValues(v, `${path}.${k}`));
 	}
 	return [];
 }
