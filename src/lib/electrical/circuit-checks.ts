@@ -1,6 +1,7 @@
 /** Branch-circuit and feeder checks: load against breaker and conductor, conductor protection, 210.23, voltage drop. */
 import { cookingDemand } from './dwelling';
 import { fig, figOf, finding, findingOf, num, q, roundTo } from './format';
+import type { TextOf } from './format';
 import { circuitVoltage } from './positions';
 import type { Circuit, Load, Panel, Room } from './schema';
 import { unitVA } from './load-values';
@@ -15,7 +16,7 @@ import {
 	tableAmpacity,
 } from './tables';
 import type { TemperatureC } from './tables';
-import type { Edition, Figure, Finding, Leg } from './types';
+import type { Edition, Figure, Finding, Leg, Severity, Target } from './types';
 
 /** What a circuit's loads add up to, gathered in one pass over its loads. */
 export interface CircuitLoadStats {
@@ -219,36 +220,27 @@ const circuitDropVoltsText = (t: CircuitTexts) =>
 const circuitDropPercentText = (t: CircuitTexts) =>
 	`${q(t.drop, 'V', 3)} ÷ ${q(t.dropVolts, 'V')} × 100 = ${q(t.dropPercent, '%')}`;
 
-/** voltageDrop for checkCircuit: the texts read `t`. */
-function circuitDrop(
+/** Keeps the voltage drop of a circuit in `t`, for its figures and texts. */
+function setDrop(
 	t: CircuitTexts,
 	amps: number,
 	lengthFt: number,
 	conductor: Circuit['conductor'],
 	poles: 1 | 2 | 3,
 	volts: number,
-	edition: Edition,
-): VoltageDrop {
+): void {
 	const k = K_FACTOR[conductor.material];
 	const cm = CIRCULAR_MILS[conductor.size];
 	const mult = poles === 3 ? Math.sqrt(3) : 2;
 	const vd = (mult * k * amps * lengthFt) / cm;
 	const pct = volts > 0 ? (vd / volts) * 100 : 0;
-	const rule = rulesFor(edition).voltageDrop;
-	t.dropCable = cableText(conductor, cm);
-	t.dropM = poles === 3 ? '√3' : '2';
 	t.dropK = k;
 	t.dropAmps = amps;
 	t.dropLength = lengthFt;
 	t.drop = vd;
 	t.dropVolts = volts;
 	t.dropPercent = pct;
-	const percent = roundTo(pct, 3);
-	t.vdPercent = percent;
-	return {
-		volts: figOf(roundTo(vd, 3), 'V', rule, circuitDropVoltsText, t),
-		percent: figOf(percent, '%', rule, circuitDropPercentText, t),
-	};
+	t.vdPercent = roundTo(pct, 3);
 }
 
 /** Voltage drop by the K method: VD = 2·K·I·L / CM (single-phase) or √3·K·I·L / CM (three-phase). */
@@ -277,7 +269,7 @@ export function voltageDrop(
 const NONE: readonly never[] = [];
 
 /** Numbers a circuit's texts keep, in one Float64Array for the whole job (no boxed number per field). */
-export const TEXT_NUMBERS = 23;
+export const TEXT_NUMBERS = 29;
 
 /**
  * What a circuit's texts read, written when first shown: values fixed as the checks run. One object
@@ -285,35 +277,81 @@ export const TEXT_NUMBERS = 23;
  */
 export class CircuitTexts {
 	name: string | null = null;
-	ratingA = 0;
-	poles: 1 | 2 | 3 = 1;
-	v = 0;
-	divLabel = '';
-	count = 0;
-	/** The circuit's loads, for the terms of the connected-load sum. */
+	/** The circuit's loads (from `loadsFrom`, `count` of them), for the terms of the connected-load sum. */
 	loads: readonly Load[] = NONE;
 	breakerWorking: Figure | null = null;
 	feederPanelName = '';
 	cookingWorking = '';
-	wire = '';
-	column = 0;
-	amp = 0;
-	limit = 0;
 	ed: Edition = '2023';
-	dropM = '';
-	dropCable = '';
 	/** Rooms the circuit and its loads serve, and the job's rooms, for the AFCI and GFCI texts. */
 	roomIds: readonly string[] = NONE;
 	rooms: ReadonlyMap<string, Room> | null = null;
 	gfciRooms: readonly Room[] = NONE;
 	afciRule = '';
 	constructor(
-		readonly id: string,
-		readonly position: number,
-		readonly label: string,
+		readonly circuit: Circuit,
 		readonly n: Float64Array = new Float64Array(TEXT_NUMBERS),
 		readonly o = 0,
 	) {}
+	// Read from the circuit rather than kept: a large job has one of these per circuit.
+	get id(): string {
+		return this.circuit.id;
+	}
+	get position(): number {
+		return this.circuit.position;
+	}
+	get label(): string {
+		return this.circuit.label;
+	}
+	get ratingA(): number {
+		return this.circuit.ratingA;
+	}
+	get poles(): 1 | 2 | 3 {
+		return this.circuit.poles;
+	}
+	get divLabel(): string {
+		return this.circuit.poles === 3 ? `(${this.v} V × √3)` : `${this.v} V`;
+	}
+	get wire(): string {
+		return wireText(this.circuit.conductor);
+	}
+	get dropM(): string {
+		return this.circuit.poles === 3 ? '√3' : '2';
+	}
+	get dropCable(): string {
+		const conductor = this.circuit.conductor;
+		return cableText(conductor, CIRCULAR_MILS[conductor.size]);
+	}
+	get v(): number {
+		return this.n[this.o + 24] as number;
+	}
+	set v(x: number) {
+		this.n[this.o + 24] = x;
+	}
+	get count(): number {
+		return this.n[this.o + 25] as number;
+	}
+	set count(x: number) {
+		this.n[this.o + 25] = x;
+	}
+	get column(): number {
+		return this.n[this.o + 26] as number;
+	}
+	set column(x: number) {
+		this.n[this.o + 26] = x;
+	}
+	get amp(): number {
+		return this.n[this.o + 27] as number;
+	}
+	set amp(x: number) {
+		this.n[this.o + 27] = x;
+	}
+	get limit(): number {
+		return this.n[this.o + 28] as number;
+	}
+	set limit(x: number) {
+		this.n[this.o + 28] = x;
+	}
 	get connected(): number {
 		return this.n[this.o + 0] as number;
 	}
@@ -452,6 +490,21 @@ export class CircuitTexts {
 	set dropPercent(x: number) {
 		this.n[this.o + 22] = x;
 	}
+	get loadsFrom(): number {
+		return this.n[this.o + 23] as number;
+	}
+	set loadsFrom(x: number) {
+		this.n[this.o + 23] = x;
+	}
+}
+
+/** The conductor in words, e.g. '12 AWG copper'. */
+function wireText(conductor: Circuit['conductor']): string {
+	const { size, material } = conductor;
+	const key = material === 'cu' ? 3 : 4;
+	return (
+		kept(size, key) ?? keep(size, key, `${sizeLabel(size)} ${material === 'cu' ? 'copper' : 'aluminum'}`)
+	);
 }
 
 /** The circuit's name in messages (circuitName), made when first needed. */
@@ -467,8 +520,10 @@ type T = CircuitTexts;
 const feederConnectedText = (t: T) => `panel ${t.feederPanelName}: ${q(t.connected, 'VA')}`;
 const connectedText = (t: T) => {
 	const terms: number[] = [];
-	for (const l of t.loads) {
-		if (terms.length === 6) break;
+	const from = t.loadsFrom;
+	const to = Math.min(from + t.count, from + 6, t.loads.length);
+	for (let k = from; k < to; k++) {
+		const l = t.loads[k] as Load;
 		terms.push(unitVA(l) * l.quantity);
 	}
 	return sumWorking(terms, t.count, t.connected);
@@ -540,9 +595,389 @@ function otherVoltageFinding(t: T, other: number, target: Finding['target']): Fi
 	);
 }
 
+const FEEDER = 1;
+const COOKING = 2;
+const MOTOR = 4;
+const MOTOR_OR_AC_ONLY = 8;
+const HAS_RECEPTACLES = 16;
+const GENERAL = 32;
+const FASTENED_OVER = 64;
+const CORD_OVER = 128;
+const TOTAL = 256;
+const TOTAL_NOTE = 512;
+
+const SEVERITY_INDEX: Record<Severity, number> = { ok: 0, note: 1, warning: 2, violation: 3 };
+
+interface Made {
+	connectedVA: Figure | null;
+	amps: Figure | null;
+	breakerLoadA: Figure | null;
+	conductorLoadA: Figure | null;
+	voltageDrop: VoltageDrop | null;
+	voltageDropTotal: Figure | null;
+	legAmps: number[] | null;
+	findings: Finding[] | null;
+}
+
+const NO_POSITIONS: number[] = [];
+const NO_LEGS: Leg[] = [];
+
 /**
- * All checks of one circuit. `feeder` is set when the circuit supplies a subpanel; `t` gathers the
- * values the texts read (its name fields come from the circuit); `target` is the circuit's target.
+ * One circuit's result, which is also what its texts read (the CircuitTexts it extends). The checks
+ * work out its numbers; its figures and findings are made when first read, since a large job has
+ * hundreds of thousands and most are never shown. toJSON gives the plain object, fields in the
+ * interface's order, so JSON is unchanged. Read it by property name: spread, Object.keys and
+ * structured clone do not see the fields made when read.
+ */
+export class CircuitChecks extends CircuitTexts implements CircuitResult {
+	positions: number[] = NO_POSITIONS;
+	legs: Leg[] = NO_LEGS;
+	feedsPanelId: string | null = null;
+	voltage!: Figure;
+	breakerA!: Figure;
+	conductorAmpacityA: Figure | null = null;
+	smallConductorLimitA: Figure | null = null;
+	#flags = 0;
+	#other: Set<number> | null = null;
+	#feederLegs: number[] | null = null;
+	#target: Target | null = null;
+	#extra: Finding[] | null = null;
+	#afciOkText: TextOf<CircuitTexts> | null = null;
+	/** Figures and findings made so far. */
+	#made: Made | null = null;
+	constructor(c: Circuit, n?: Float64Array, o?: number) {
+		super(c, n, o);
+	}
+	/** Keeps what checkCircuit found. */
+	set(
+		flags: number,
+		positions: number[],
+		legs: Leg[],
+		feedsPanelId: string | null,
+		feederLegs: number[] | null,
+		voltage: Figure,
+		breakerA: Figure,
+		conductorAmpacityA: Figure | null,
+		smallConductorLimitA: Figure | null,
+		other: Set<number> | null,
+	): void {
+		this.positions = positions;
+		this.legs = legs;
+		this.feedsPanelId = feedsPanelId;
+		this.voltage = voltage;
+		this.breakerA = breakerA;
+		this.conductorAmpacityA = conductorAmpacityA;
+		this.smallConductorLimitA = smallConductorLimitA;
+		this.#flags = flags;
+		this.#other = other;
+		this.#feederLegs = feederLegs;
+	}
+	get #m(): Made {
+		return (this.#made ??= {
+			connectedVA: null,
+			amps: null,
+			breakerLoadA: null,
+			conductorLoadA: null,
+			voltageDrop: null,
+			voltageDropTotal: null,
+			legAmps: null,
+			findings: null,
+		});
+	}
+	get circuitId(): string {
+		return this.circuit.id;
+	}
+	get panelId(): string {
+		return this.circuit.panelId;
+	}
+	get status(): Circuit['status'] {
+		return this.circuit.status;
+	}
+	/** The target of the circuit's findings. */
+	get target(): Target {
+		return (this.#target ??= { kind: 'circuit', id: this.circuit.id });
+	}
+	/** connectedVA.value, without making the figure. */
+	get connectedValue(): number {
+		return roundTo(this.connected, 6);
+	}
+	/** voltageDrop.percent.value, without making the figure. */
+	get dropPercentValue(): number {
+		return this.vdPercent;
+	}
+	/** legAmps[i], without making the list. */
+	legAmp(i: number): number {
+		if (this.#feederLegs) return this.#feederLegs[i] ?? 0;
+		return i < this.legs.length ? this.ampsValue : 0;
+	}
+	get connectedVA(): Figure {
+		const m = this.#m;
+		if (m.connectedVA) return m.connectedVA;
+		const feeder = (this.#flags & FEEDER) !== 0;
+		return (this.#m.connectedVA = figOf(
+			roundTo(this.connected, 6),
+			'VA',
+			feeder ? 'sum of the subpanel’s connected loads' : 'sum of the recorded loads',
+			feeder ? feederConnectedText : connectedText,
+			this,
+		));
+	}
+	get amps(): Figure {
+		return (this.#m.amps ??= figOf(roundTo(this.ampsValue, 3), 'A', 'I = S ÷ V', ampsText, this));
+	}
+	get breakerLoadA(): Figure {
+		const m = this.#m;
+		if (m.breakerLoadA) return m.breakerLoadA;
+		const R = rulesFor(this.ed);
+		const f = this.#flags;
+		const value = roundTo(this.breakerLoad, 3);
+		return (this.#m.breakerLoadA =
+			(f & FEEDER) !== 0
+				? figOf(value, 'A', R.feederRating, feederLoadText, this)
+				: (f & COOKING) !== 0
+					? figOf(value, 'A', R.rangeBranch, cookingLoadText, this)
+					: figOf(value, 'A', R.continuousBreaker, breakerLoadText, this));
+	}
+	get conductorLoadA(): Figure {
+		const m = this.#m;
+		if (m.conductorLoadA) return m.conductorLoadA;
+		const f = this.#flags;
+		const breaker = this.breakerLoadA;
+		if ((f & (FEEDER | COOKING)) !== 0) return (this.#m.conductorLoadA = breaker);
+		const R = rulesFor(this.ed);
+		if ((f & MOTOR) !== 0)
+			return (this.#m.conductorLoadA = figOf(
+				roundTo(this.conductorLoad, 3),
+				'A',
+				R.motorConductor,
+				motorLoadText,
+				this,
+			));
+		this.breakerWorking = breaker;
+		return (this.#m.conductorLoadA = figOf(
+			breaker.value,
+			breaker.unit,
+			R.continuousConductor,
+			sameAsBreakerText,
+			this,
+		));
+	}
+	get voltageDrop(): VoltageDrop {
+		const m = this.#m;
+		if (m.voltageDrop) return m.voltageDrop;
+		const rule = rulesFor(this.ed).voltageDrop;
+		return (this.#m.voltageDrop = {
+			volts: figOf(roundTo(this.drop, 3), 'V', rule, circuitDropVoltsText, this),
+			percent: figOf(this.vdPercent, '%', rule, circuitDropPercentText, this),
+		});
+	}
+	get voltageDropTotal(): Figure | null {
+		if ((this.#flags & TOTAL) === 0) return null;
+		const m = this.#m;
+		if (m.voltageDropTotal) return m.voltageDropTotal;
+		return (this.#m.voltageDropTotal = figOf(
+			roundTo(this.totalDrop, 3),
+			'%',
+			rulesFor(this.ed).voltageDrop,
+			totalDropText,
+			this,
+		));
+	}
+	get legAmps(): number[] {
+		const m = this.#m;
+		if (m.legAmps) return m.legAmps;
+		if (this.#feederLegs) return (this.#m.legAmps = this.#feederLegs);
+		const perLeg = this.ampsValue;
+		const n = this.legs.length;
+		return (this.#m.legAmps = n === 1 ? [perLeg] : n === 2 ? [perLeg, perLeg] : [perLeg, perLeg, perLeg]);
+	}
+	get findings(): Finding[] {
+		const m = this.#m;
+		if (m.findings) return m.findings;
+		const out: Finding[] = [];
+		this.#emit(out, null);
+		return (this.#m.findings = out);
+	}
+	/** Adds findings made elsewhere (protection), after the circuit's own. */
+	addFindings(list: readonly Finding[]): void {
+		if (list.length === 0) return;
+		const made = this.#made?.findings;
+		if (made) for (const f of list) made.push(f);
+		else if (this.#extra) for (const f of list) this.#extra.push(f);
+		else this.#extra = list.slice();
+	}
+	/** Adds the afci-required 'ok' finding (rule `texts.afciRule`) after the others, made when read. */
+	addAfciOk(text: TextOf<CircuitTexts>): void {
+		const made = this.#made?.findings;
+		if (made) made.push(findingOf('ok', 'afci-required', text, this, this.afciRule, this.target));
+		else this.#afciOkText = text;
+	}
+	/** Adds the voltage drop of the feeders between this circuit's panel and the service. */
+	addUpstreamDrop(up: number): void {
+		const branch = this.vdPercent;
+		const total = up + branch;
+		this.upstream = up;
+		this.branch = branch;
+		this.totalDrop = total;
+		this.#flags |= total > 5 ? TOTAL | TOTAL_NOTE : TOTAL;
+		const made = this.#made?.findings;
+		if (made && total > 5)
+			made.push(
+				findingOf(
+					'note',
+					'voltage-drop-total',
+					totalDropNoteText,
+					this,
+					rulesFor(this.ed).voltageDrop,
+					this.target,
+				),
+			);
+	}
+	/** Adds the count of each severity of the circuit's findings to `counts` (ok, note, warning, violation). */
+	countFindings(counts: number[]): void {
+		const made = this.#made?.findings;
+		if (made) {
+			for (const f of made) {
+				const i = SEVERITY_INDEX[f.severity] ?? 3;
+				counts[i] = (counts[i] as number) + 1;
+			}
+		} else this.#emit(null, counts);
+	}
+	#add(
+		out: Finding[] | null,
+		counts: number[] | null,
+		severity: Severity,
+		code: string,
+		text: TextOf<CircuitTexts>,
+		rule: string,
+	): void {
+		if (out) out.push(findingOf(severity, code, text, this, rule, this.target));
+		else if (counts) {
+			const i = SEVERITY_INDEX[severity];
+			counts[i] = (counts[i] as number) + 1;
+		}
+	}
+	#emit(out: Finding[] | null, counts: number[] | null): void {
+		const f = this.#flags;
+		const ed = this.ed;
+		const R = rulesFor(ed);
+		const ratingA = this.ratingA;
+		const feeder = (f & FEEDER) !== 0;
+		const breakerRule = feeder ? R.feederRating : (f & COOKING) !== 0 ? R.rangeBranch : R.continuousBreaker;
+		const conductorRule =
+			(f & (FEEDER | COOKING)) !== 0
+				? breakerRule
+				: (f & MOTOR) !== 0
+					? R.motorConductor
+					: R.continuousConductor;
+		const over = this.breakerLoad > ratingA + 1e-9;
+		this.#add(
+			out,
+			counts,
+			over ? 'violation' : 'ok',
+			feeder ? 'feeder-overload' : 'breaker-overload',
+			over ? overloadText : withinText,
+			breakerRule,
+		);
+		const amp = this.conductorAmpacityA === null ? null : this.amp;
+		const limit = this.smallConductorLimitA === null ? null : this.smallConductorLimitA.value;
+		const motorOnly = (f & MOTOR_OR_AC_ONLY) !== 0 && this.count > 0;
+		if (amp === null) {
+			this.#add(out, counts, 'warning', 'ampacity-not-tabulated', notTabulatedText, R.ampacityTable);
+		} else {
+			const under = this.conductorLoad > amp + 1e-9;
+			this.#add(
+				out,
+				counts,
+				under ? 'violation' : 'ok',
+				'conductor-undersized',
+				under ? undersizedText : carriesText,
+				conductorRule,
+			);
+			if (limit !== null && ratingA > limit) {
+				if (motorOnly)
+					this.#add(out, counts, 'note', 'small-conductor-limit', smallLimitNoteText, R.motorAcConductors);
+				else this.#add(out, counts, 'violation', 'small-conductor-limit', smallLimitText, R.smallConductors);
+			} else if (ratingA > amp) {
+				const next = standardRatingAbove(amp);
+				const nextOk =
+					!isStandardRating(amp) && next === ratingA && ratingA <= 800 && (f & HAS_RECEPTACLES) === 0;
+				if (nextOk) this.#add(out, counts, 'note', 'next-size-up', nextSizeText, R.nextSizeUp);
+				else if (motorOnly)
+					this.#add(out, counts, 'note', 'conductor-overcurrent', motorProtectionText, R.motorAcConductors);
+				else
+					this.#add(out, counts, 'violation', 'conductor-overcurrent', overcurrentText, R.ampacityNextSize);
+			} else {
+				this.#add(out, counts, 'ok', 'conductor-overcurrent', protectedText, R.smallConductors);
+			}
+		}
+		if (ratingA === 10 && ed !== '2023') {
+			this.#add(out, counts, 'warning', 'ten-amp-circuit', tenAmpText, section('tenAmpCircuits', '2023'));
+		}
+		if (!feeder && (f & GENERAL) !== 0) {
+			if (ratingA > 20)
+				this.#add(out, counts, 'violation', 'multioutlet-rating', multioutletText, R.multioutlet);
+			if ((f & FASTENED_OVER) !== 0)
+				this.#add(out, counts, 'violation', 'fastened-over-50', fastenedText, R.fastenedInPlace);
+		}
+		if (!feeder && (f & CORD_OVER) !== 0)
+			this.#add(out, counts, 'violation', 'cord-and-plug-over-80', cordText, R.cordAndPlug);
+		const other = this.#other;
+		if (other)
+			for (const o of other) {
+				if (out) out.push(otherVoltageFinding(this, o, this.target));
+				else if (counts) counts[1] = (counts[1] as number) + 1;
+			}
+		if (this.vdPercent > (feeder ? 2 : 3)) {
+			this.#add(out, counts, 'note', 'voltage-drop', feeder ? feederDropText : branchDropText, R.voltageDrop);
+		} else if (!feeder) {
+			this.#add(out, counts, 'ok', 'voltage-drop', dropWithinText, R.voltageDrop);
+		}
+		if (this.circuit.label.trim().length === 0) {
+			this.#add(out, counts, 'violation', 'label-missing', labelMissingText, R.circuitDirectory);
+		}
+		if (!feeder && this.count === 0) this.#add(out, counts, 'note', 'no-loads', noLoadsText, COMMON_PRACTICE);
+		const extra = this.#extra;
+		if (extra) {
+			if (out) for (const x of extra) out.push(x);
+			else if (counts)
+				for (const x of extra) {
+					const i = SEVERITY_INDEX[x.severity] ?? 3;
+					counts[i] = (counts[i] as number) + 1;
+				}
+		}
+		if (this.#afciOkText) this.#add(out, counts, 'ok', 'afci-required', this.#afciOkText, this.afciRule);
+		if ((f & TOTAL_NOTE) !== 0)
+			this.#add(out, counts, 'note', 'voltage-drop-total', totalDropNoteText, R.voltageDrop);
+	}
+	toJSON(): CircuitResult {
+		return {
+			circuitId: this.circuitId,
+			panelId: this.panelId,
+			label: this.label,
+			status: this.status,
+			positions: this.positions,
+			legs: this.legs,
+			feedsPanelId: this.feedsPanelId,
+			voltage: this.voltage,
+			connectedVA: this.connectedVA,
+			amps: this.amps,
+			breakerLoadA: this.breakerLoadA,
+			conductorLoadA: this.conductorLoadA,
+			breakerA: this.breakerA,
+			conductorAmpacityA: this.conductorAmpacityA,
+			smallConductorLimitA: this.smallConductorLimitA,
+			voltageDrop: this.voltageDrop,
+			voltageDropTotal: this.voltageDropTotal,
+			legAmps: this.legAmps,
+			findings: this.findings,
+		};
+	}
+}
+
+/**
+ * All checks of one circuit. `feeder` is set when the circuit supplies a subpanel; `t`, the result,
+ * also gathers the values the texts read (its name fields come from the circuit).
  */
 export function checkCircuit(
 	c: Circuit,
@@ -552,24 +987,19 @@ export function checkCircuit(
 	feeder: FeederLoad | null,
 	legs: Leg[],
 	positions: number[],
-	t: CircuitTexts = new CircuitTexts(c.id, c.position, c.label),
-	target: Finding['target'] = { kind: 'circuit', id: c.id },
-): CircuitResult {
+	t: CircuitChecks = new CircuitChecks(c),
+): CircuitChecks {
 	const ed = ctx.edition;
 	const R = rulesFor(ed);
-	const findings: Finding[] = [];
 	const ratingA = c.ratingA;
 	const poles = c.poles;
 	const system = panel.voltageSystem;
 	const v = circuitVoltage(poles, system);
 	const divisor = poles === 3 ? v * Math.sqrt(3) : v;
-	const divLabel = poles === 3 ? `(${v} V × √3)` : `${v} V`;
 	t.ed = ed;
-	t.ratingA = ratingA;
-	t.poles = poles;
 	t.v = v;
 	t.divisor = divisor;
-	t.divLabel = divLabel;
+	let flags = 0;
 	const voltage =
 		sharedFigure(ctx, system, 10 + poles) ??
 		shareFigure(
@@ -583,40 +1013,28 @@ export function checkCircuit(
 	t.connected = connected;
 	t.count = stats.count;
 	if (feeder) {
+		flags |= FEEDER;
 		t.feederPanelName = feeder.panelName;
 		t.feederCalculatedVA = feeder.calculatedVA;
 	}
-	const connectedVA = figOf(
-		roundTo(connected, 6),
-		'VA',
-		feeder ? 'sum of the subpanel’s connected loads' : 'sum of the recorded loads',
-		feeder ? feederConnectedText : connectedText,
-		t,
-	);
 	const ampsValue = connected / divisor;
 	t.ampsValue = ampsValue;
-	const amps = figOf(roundTo(ampsValue, 3), 'A', 'I = S ÷ V', ampsText, t);
 
 	let breakerLoad: number;
-	let breakerLoadA: Figure;
 	let conductorLoad: number;
-	let conductorLoadA: Figure;
 	if (feeder) {
 		breakerLoad = feeder.calculatedVA / divisor;
 		t.breakerLoad = breakerLoad;
-		breakerLoadA = figOf(roundTo(breakerLoad, 3), 'A', R.feederRating, feederLoadText, t);
 		conductorLoad = breakerLoad;
-		conductorLoadA = breakerLoadA;
 	} else if (stats.onlyCooking && stats.count > 0 && stats.cookingKW.some((k) => k >= 8.75)) {
 		// A household range of 8.75 kW or more: the branch-circuit load may be taken from Table 220.55.
+		flags |= COOKING;
 		const d = cookingDemand(stats.cookingKW);
 		breakerLoad = d.va / divisor;
 		t.breakerLoad = breakerLoad;
 		t.cookingVA = d.va;
 		t.cookingWorking = d.working;
-		breakerLoadA = figOf(roundTo(breakerLoad, 3), 'A', R.rangeBranch, cookingLoadText, t);
 		conductorLoad = breakerLoad;
-		conductorLoadA = breakerLoadA;
 	} else {
 		const continuousVA = stats.continuousVA;
 		const largestMotorVA = stats.largestMotorVA;
@@ -629,22 +1047,8 @@ export function checkCircuit(
 		t.nonc = nonc;
 		t.va = va;
 		t.breakerLoad = load;
-		const breakerFigure = figOf(roundTo(load, 3), 'A', R.continuousBreaker, breakerLoadText, t);
-		breakerLoadA = breakerFigure;
-		const withMotor = load + (0.25 * largestMotorVA) / divisor;
-		conductorLoad = withMotor;
-		if (largestMotorVA > 0) {
-			conductorLoadA = figOf(roundTo(withMotor, 3), 'A', R.motorConductor, motorLoadText, t);
-		} else {
-			t.breakerWorking = breakerFigure;
-			conductorLoadA = figOf(
-				breakerFigure.value,
-				breakerFigure.unit,
-				R.continuousConductor,
-				sameAsBreakerText,
-				t,
-			);
-		}
+		conductorLoad = load + (0.25 * largestMotorVA) / divisor;
+		if (largestMotorVA > 0) flags |= MOTOR;
 	}
 	t.conductorLoad = conductorLoad;
 
@@ -668,11 +1072,7 @@ export function checkCircuit(
 	const terminalC = ctx.terminalC;
 	const column = Math.min(insulationC, terminalC) as TemperatureC;
 	const amp = tableAmpacity(size, material, column, ed);
-	const wireKey = material === 'cu' ? 3 : 4;
-	const wire =
-		kept(size, wireKey) ??
-		keep(size, wireKey, `${sizeLabel(size)} ${material === 'cu' ? 'copper' : 'aluminum'}`);
-	t.wire = wire;
+	const wire = wireText(c.conductor);
 	t.column = column;
 	const ampacityKey = insulationC * 10_000 + terminalC * 10 + EDITION_NUMBER[ed];
 	const conductorAmpacityA =
@@ -702,134 +1102,47 @@ export function checkCircuit(
 					fig(limit, 'A', R.smallConductors, `${wire}: overcurrent protection not over ${q(limit, 'A')}`),
 				));
 
-	// Breaker against its load.
-	const over = breakerLoad > ratingA + 1e-9;
-	findings.push(
-		findingOf(
-			over ? 'violation' : 'ok',
-			feeder ? 'feeder-overload' : 'breaker-overload',
-			over ? overloadText : withinText,
-			t,
-			breakerLoadA.rule,
-			target,
-		),
-	);
-
-	if (amp === null) {
-		findings.push(
-			findingOf('warning', 'ampacity-not-tabulated', notTabulatedText, t, R.ampacityTable, target),
-		);
-	} else {
+	if (amp !== null) {
 		t.amp = amp;
-		const under = conductorLoad > amp + 1e-9;
-		findings.push(
-			findingOf(
-				under ? 'violation' : 'ok',
-				'conductor-undersized',
-				under ? undersizedText : carriesText,
-				t,
-				conductorLoadA.rule,
-				target,
-			),
-		);
-		const motorRule = R.motorAcConductors;
-		if (limit !== null && ratingA > limit) {
-			t.limit = limit;
-			findings.push(
-				stats.motorOrAcOnly && stats.count > 0
-					? findingOf('note', 'small-conductor-limit', smallLimitNoteText, t, motorRule, target)
-					: findingOf('violation', 'small-conductor-limit', smallLimitText, t, R.smallConductors, target),
-			);
-		} else if (ratingA > amp) {
-			const next = standardRatingAbove(amp);
-			const nextOk = !isStandardRating(amp) && next === ratingA && ratingA <= 800 && !stats.hasReceptacles;
-			if (nextOk) {
-				findings.push(findingOf('note', 'next-size-up', nextSizeText, t, R.nextSizeUp, target));
-			} else if (stats.motorOrAcOnly && stats.count > 0) {
-				findings.push(findingOf('note', 'conductor-overcurrent', motorProtectionText, t, motorRule, target));
-			} else {
-				findings.push(
-					findingOf('violation', 'conductor-overcurrent', overcurrentText, t, R.ampacityNextSize, target),
-				);
-			}
-		} else {
-			findings.push(findingOf('ok', 'conductor-overcurrent', protectedText, t, R.smallConductors, target));
-		}
+		if (limit !== null && ratingA > limit) t.limit = limit;
 	}
-
-	if (ratingA === 10 && ed !== '2023') {
-		findings.push(
-			findingOf('warning', 'ten-amp-circuit', tenAmpText, t, section('tenAmpCircuits', '2023'), target),
-		);
-	}
-
-	// 210.23: general-purpose outlet circuits in a dwelling are 15 or 20 A; cord-and-plug 80 %; fastened-in-place 50 %.
+	if (stats.motorOrAcOnly) flags |= MOTOR_OR_AC_ONLY;
+	if (stats.hasReceptacles) flags |= HAS_RECEPTACLES;
 	if (!feeder && stats.hasGeneralOutlets) {
-		if (ratingA > 20) {
-			findings.push(findingOf('violation', 'multioutlet-rating', multioutletText, t, R.multioutlet, target));
-		}
+		flags |= GENERAL;
 		const fastenedA = stats.fastenedVA / divisor;
 		if (fastenedA > 0.5 * ratingA + 1e-9) {
 			t.fastenedA = fastenedA;
-			findings.push(findingOf('violation', 'fastened-over-50', fastenedText, t, R.fastenedInPlace, target));
+			flags |= FASTENED_OVER;
 		}
 	}
 	if (!feeder && stats.largestCordVA > 0) {
 		const cordA = stats.largestCordVA / divisor;
 		if (cordA > 0.8 * ratingA + 1e-9) {
 			t.cordA = cordA;
-			findings.push(findingOf('violation', 'cord-and-plug-over-80', cordText, t, R.cordAndPlug, target));
+			flags |= CORD_OVER;
 		}
 	}
-	if (stats.otherVoltages)
-		for (const other of stats.otherVoltages) findings.push(otherVoltageFinding(t, other, target));
 
-	const vdAmps = feeder ? breakerLoad : ampsValue;
-	const vd = circuitDrop(t, vdAmps, c.lengthFt, c.conductor, poles, v, ed);
-	const vdLimit = feeder ? 2 : 3;
-	if (vd.percent.value > vdLimit) {
-		findings.push(
-			findingOf('note', 'voltage-drop', feeder ? feederDropText : branchDropText, t, vd.percent.rule, target),
-		);
-	} else if (!feeder) {
-		findings.push(findingOf('ok', 'voltage-drop', dropWithinText, t, vd.percent.rule, target));
-	}
+	setDrop(t, feeder ? breakerLoad : ampsValue, c.lengthFt, c.conductor, poles, v);
 
-	if (c.label.trim().length === 0) {
-		findings.push(findingOf('violation', 'label-missing', labelMissingText, t, R.circuitDirectory, target));
-	}
-	if (!feeder && stats.count === 0) {
-		findings.push(findingOf('note', 'no-loads', noLoadsText, t, COMMON_PRACTICE, target));
-	}
-
-	let legAmps: number[];
+	let feederLegs: number[] | null = null;
 	if (feeder) {
-		legAmps = [];
-		for (let i = 0; i < legs.length; i++) legAmps.push(feeder.legAmps[i] ?? 0);
-	} else {
-		const perLeg = connected / divisor;
-		legAmps = legs.length === 1 ? [perLeg] : legs.length === 2 ? [perLeg, perLeg] : [perLeg, perLeg, perLeg];
+		feederLegs = [];
+		for (let i = 0; i < legs.length; i++) feederLegs.push(feeder.legAmps[i] ?? 0);
 	}
 
-	return {
-		circuitId: c.id,
-		panelId: c.panelId,
-		label: c.label,
-		status: c.status,
+	t.set(
+		flags,
 		positions,
 		legs,
-		feedsPanelId: feeder ? feeder.panelId : null,
+		feeder ? feeder.panelId : null,
+		feederLegs,
 		voltage,
-		connectedVA,
-		amps,
-		breakerLoadA,
-		conductorLoadA,
 		breakerA,
 		conductorAmpacityA,
-		smallConductorLimitA: smallLimit,
-		voltageDrop: vd,
-		voltageDropTotal: null,
-		legAmps,
-		findings,
-	};
+		smallLimit,
+		stats.otherVoltages,
+	);
+	return t;
 }

@@ -1,13 +1,5 @@
 /** computeJob: every check of a job document in one pass over its records. */
-import {
-	CircuitTexts,
-	TEXT_NUMBERS,
-	checkCircuit,
-	circuitName,
-	emptyStats,
-	totalDropNoteText,
-	totalDropText,
-} from './circuit-checks';
+import { CircuitChecks, TEXT_NUMBERS, checkCircuit, circuitName, emptyStats } from './circuit-checks';
 import type { CircuitContext, CircuitLoadStats, CircuitResult, FeederLoad } from './circuit-checks';
 import {
 	addLoad,
@@ -21,10 +13,10 @@ import {
 	standardMethod,
 } from './dwelling';
 import type { GeneralLoadOptions, LoadBucket, Supply } from './dwelling';
-import { fig, figOf, finding, findingOf, num, q, roundTo } from './format';
+import { fig, finding, num, q, roundTo } from './format';
 import { isContinuous, isMotor, unitVA } from './load-values';
 import { circuitVoltage, legOf, legsOf, positionsTaken, rowOf, sideOf } from './positions';
-import { isReceptacleLoad, protectionFindings, requiredCircuitFindings } from './protection';
+import { afciOkText, isReceptacleLoad, protectionFindings, requiredCircuitFindings } from './protection';
 import type { RequiredCircuitFacts } from './protection';
 import type { Circuit, JobDocument, Load, Panel, Room, VoltageSystem } from './schema';
 import { COMMON_PRACTICE, section } from './sections';
@@ -141,18 +133,22 @@ interface CircuitPass {
 	ed: Edition;
 	ctx: CircuitContext;
 	numbers: Float64Array;
-	textsAt: CircuitTexts[];
-	resultAt: (CircuitResult | undefined)[];
-	loadsAt: (Load[] | undefined)[];
+	resultAt: (CircuitChecks | undefined)[];
+	grouped: Load[];
+	loadStart: Int32Array;
+	/** 1 at the index of each circuit that feeds a panel. */
+	feedsPanel: Uint8Array;
+	/** The room last added to facts.receptacle20ARooms. */
+	lastRoom: string | null;
 	stats: CircuitLoadStats;
 	facts: RequiredCircuitFacts;
 	panelFedBy: ReadonlyMap<string, string>;
 	work: ReadonlyMap<string, PanelWork>;
 	roomsById: ReadonlyMap<string, Room>;
-	circuitResults: Map<string, CircuitResult>;
+	circuitResults: Map<string, CircuitChecks>;
+	/** Findings protectionFindings makes for the current circuit. */
+	extra: Finding[];
 }
-
-const noLoads: Load[] = [];
 
 /** Checks circuit `c` (at `index` in doc.circuits) of panel `w` and adds its loads to the panel's. */
 function runCircuit(
@@ -163,19 +159,20 @@ function runCircuit(
 	c: Circuit,
 	index: number,
 ): void {
-	const { ed, ctx, numbers, textsAt, resultAt, loadsAt, stats, facts, panelFedBy, work, roomsById } = s;
+	const { ed, ctx, numbers, resultAt, grouped, loadStart, stats, facts, panelFedBy, work, roomsById } = s;
 	const p = w.panel;
-	const t = new CircuitTexts(c.id, c.position, c.label, numbers, index * TEXT_NUMBERS);
-	t.ratingA = c.ratingA;
-	textsAt[index] = t;
-	const loads = loadsAt[index] ?? noLoads;
-	t.loads = loads;
+	const t = new CircuitChecks(c, numbers, index * TEXT_NUMBERS);
+	const from = loadStart[index] as number;
+	const to = loadStart[index + 1] as number;
+	t.loads = grouped;
+	t.loadsFrom = from;
 	const v = circuitVoltage(c.poles, p.voltageSystem);
 	resetStats(stats);
 	let firstSA = true;
 	let firstLaundry = true;
 	let hasReceptacle = false;
-	for (const l of loads) {
+	for (let k = from; k < to; k++) {
+		const l = grouped[k] as Load;
 		const each = unitVA(l);
 		const total = each * l.quantity;
 		stats.count++;
@@ -208,12 +205,27 @@ function runCircuit(
 	if (!firstSA) facts.smallAppliance.push(t);
 	if (!firstLaundry) facts.laundry.push(t);
 	if (hasReceptacle && c.poles === 1 && c.ratingA === 20) {
-		for (const r of c.roomIds) facts.receptacle20ARooms.add(r);
-		for (const l of loads)
-			if (isReceptacleLoad(l)) for (const r of l.roomIds) facts.receptacle20ARooms.add(r);
+		// Most circuits repeat the room just added: skipping it leaves the set and its order unchanged.
+		const rooms = facts.receptacle20ARooms;
+		let last = s.lastRoom;
+		for (const r of c.roomIds)
+			if (r !== last) {
+				rooms.add(r);
+				last = r;
+			}
+		for (let k = from; k < to; k++) {
+			const l = grouped[k] as Load;
+			if (isReceptacleLoad(l))
+				for (const r of l.roomIds)
+					if (r !== last) {
+						rooms.add(r);
+						last = r;
+					}
+		}
+		s.lastRoom = last;
 	}
 
-	const subId = panelFedBy.get(c.id);
+	const subId = s.feedsPanel[index] === 1 ? panelFedBy.get(c.id) : undefined;
 	const sub = subId !== undefined ? work.get(subId) : undefined;
 	const feeder: FeederLoad | null = sub
 		? {
@@ -232,15 +244,20 @@ function runCircuit(
 		places.set(key, place);
 	}
 	const { positions, legs } = place;
-	const target = { kind: 'circuit', id: c.id } as const;
-	const r = checkCircuit(c, p, stats, ctx, feeder, legs, positions, t, target);
-	protectionFindings(c, loads, roomsById, ed, t, target, r.findings);
+	const r = checkCircuit(c, p, stats, ctx, feeder, legs, positions, t);
+	const extra = s.extra;
+	const afciOk = protectionFindings(c, grouped, from, to, roomsById, ed, t, r, extra);
+	if (extra.length > 0) {
+		r.addFindings(extra);
+		extra.length = 0;
+	}
+	if (afciOk) r.addAfciOk(afciOkText);
 	resultAt[index] = r;
 	if (sub) s.circuitResults.set(c.id, r);
-	w.connectedVA += r.connectedVA.value;
+	w.connectedVA += r.connectedValue;
 	for (let i = 0; i < legs.length; i++) {
 		const li = legIndex.indexOf(legs[i] as Leg);
-		if (li >= 0) w.legAmps[li] = (w.legAmps[li] ?? 0) + (r.legAmps[i] ?? 0);
+		if (li >= 0) w.legAmps[li] = (w.legAmps[li] ?? 0) + r.legAmp(i);
 	}
 }
 
@@ -319,13 +336,34 @@ export function computeJob(doc: JobDocument): JobResult {
 			w.indexes.push(i);
 		}
 	}
-	const loadsAt: (Load[] | undefined)[] = new Array(doc.circuits.length);
-	for (const l of doc.loads) {
-		const i = indexById.get(l.circuitId);
-		if (i === undefined) continue;
-		const list = loadsAt[i];
-		if (list) list.push(l);
-		else loadsAt[i] = [l];
+	const feedsPanel = new Uint8Array(doc.circuits.length);
+	for (const id of panelFedBy.keys()) {
+		const i = indexById.get(id);
+		if (i !== undefined) feedsPanel[i] = 1;
+	}
+	// Loads grouped by circuit in one list, in document order: circuit i's are from loadStart[i] to before loadStart[i + 1].
+	const loadCircuit = new Int32Array(doc.loads.length);
+	const loadStart = new Int32Array(doc.circuits.length + 1);
+	// Loads of one circuit usually follow each other: the lookup is skipped for a repeated id.
+	let lastId: string | null = null;
+	let lastIndex: number | undefined;
+	for (let k = 0; k < doc.loads.length; k++) {
+		const id = (doc.loads[k] as Load).circuitId;
+		const i = id === lastId ? lastIndex : indexById.get(id);
+		lastId = id;
+		lastIndex = i;
+		loadCircuit[k] = i === undefined ? -1 : i;
+		if (i !== undefined) loadStart[i + 1] = (loadStart[i + 1] as number) + 1;
+	}
+	for (let i = 0; i < doc.circuits.length; i++)
+		loadStart[i + 1] = (loadStart[i + 1] as number) + (loadStart[i] as number);
+	const grouped: Load[] = new Array(loadStart[doc.circuits.length] as number);
+	const fill = loadStart.slice(0, doc.circuits.length);
+	for (let k = 0; k < doc.loads.length; k++) {
+		const i = loadCircuit[k] as number;
+		if (i < 0) continue;
+		grouped[fill[i] as number] = doc.loads[k] as Load;
+		fill[i] = (fill[i] as number) + 1;
 	}
 
 	// Panels children first, so a feeder circuit sees its subpanel's totals.
@@ -352,28 +390,30 @@ export function computeJob(doc: JobDocument): JobResult {
 
 	const facts: RequiredCircuitFacts = { smallAppliance: [], laundry: [], receptacle20ARooms: new Set() };
 	// Results by index in doc.circuits; feeders also by id, for their subpanels.
-	const resultAt: (CircuitResult | undefined)[] = new Array(doc.circuits.length);
-	const textsAt: CircuitTexts[] = new Array(doc.circuits.length);
+	const resultAt: (CircuitChecks | undefined)[] = new Array(doc.circuits.length);
 	const numbers = new Float64Array(doc.circuits.length * TEXT_NUMBERS);
 	// Positions and legs by first position and poles, shared by the circuits that take the same ones.
 	const placesBySystem = new Map<VoltageSystem, Map<number, { positions: number[]; legs: Leg[] }>>();
 	const stats: CircuitLoadStats = emptyStats();
-	const circuitResults = new Map<string, CircuitResult>();
+	const circuitResults = new Map<string, CircuitChecks>();
 	const jobArea = floorArea(doc);
 	const soleRoot = roots.length === 1 ? roots[0] : undefined;
 	const pass: CircuitPass = {
 		ed,
 		ctx,
 		numbers,
-		textsAt,
 		resultAt,
-		loadsAt,
+		grouped,
+		loadStart,
+		feedsPanel,
+		lastRoom: null,
 		stats,
 		facts,
 		panelFedBy,
 		work,
 		roomsById,
 		circuitResults,
+		extra: [],
 	};
 
 	for (const panelId of postOrder) {
@@ -419,32 +459,15 @@ export function computeJob(doc: JobDocument): JobResult {
 		if (!p) continue;
 		const feederId = p.fedFromCircuitId;
 		const feeder = feederId !== null ? circuitResults.get(feederId) : undefined;
-		const up = feeder ? (upstreamPct.get(feeder.panelId) ?? 0) + feeder.voltageDrop.percent.value : 0;
+		const up = feeder ? (upstreamPct.get(feeder.panelId) ?? 0) + feeder.dropPercentValue : 0;
 		upstreamPct.set(panelId, up);
 	}
-	const circuits: CircuitResult[] = [];
+	const circuits: CircuitChecks[] = [];
 	for (let i = 0; i < doc.circuits.length; i++) {
 		const r = resultAt[i];
 		if (!r) continue;
-		const c = doc.circuits[i] as Circuit;
-		const t = textsAt[i] as CircuitTexts;
 		const up = upstreamPct.get(r.panelId) ?? 0;
-		if (up > 0 && r.feedsPanelId === null) {
-			const branch = r.voltageDrop.percent.value;
-			const total = up + branch;
-			t.upstream = up;
-			t.branch = branch;
-			t.totalDrop = total;
-			r.voltageDropTotal = figOf(roundTo(total, 3), '%', r.voltageDrop.percent.rule, totalDropText, t);
-			if (total > 5) {
-				r.findings.push(
-					findingOf('note', 'voltage-drop-total', totalDropNoteText, t, r.voltageDrop.percent.rule, {
-						kind: 'circuit',
-						id: c.id,
-					}),
-				);
-			}
-		}
+		if (up > 0 && r.feedsPanelId === null) r.addUpstreamDrop(up);
 		circuits.push(r);
 	}
 
@@ -482,7 +505,14 @@ export function computeJob(doc: JobDocument): JobResult {
 
 	const protection = requiredCircuitFindings(facts, doc.rooms, ed, existingDwelling, jobId);
 	const served = new Set<string>();
-	for (const c of doc.circuits) if (c.status !== 'removed') for (const r of c.roomIds) served.add(r);
+	let lastServed: string | undefined;
+	for (const c of doc.circuits)
+		if (c.status !== 'removed')
+			for (const r of c.roomIds)
+				if (r !== lastServed) {
+					served.add(r);
+					lastServed = r;
+				}
 	let lastRoom: string | undefined;
 	for (const l of doc.loads)
 		for (const r of l.roomIds)
@@ -512,29 +542,28 @@ export function computeJob(doc: JobDocument): JobResult {
 		const r = work.get(p.id)?.result;
 		if (r) panels.push(r);
 	}
-	const findings: Finding[] = [];
-	for (const r of circuits) for (const f of r.findings) findings.push(f);
-	for (const p of panels) for (const f of p.findings) findings.push(f);
-	for (const f of protection) findings.push(f);
-	for (const f of service.findings) findings.push(f);
-	let ok = 0;
-	let note = 0;
-	let warning = 0;
-	for (const f of findings) {
-		const s = f.severity;
-		if (s === 'ok') ok++;
-		else if (s === 'note') note++;
-		else if (s === 'warning') warning++;
-	}
+	// Counted from the circuits' numbers: their findings are made only when read.
+	const counts = [0, 0, 0, 0];
+	for (const r of circuits) r.countFindings(counts);
+	const count = (list: readonly Finding[]) => {
+		for (const f of list) {
+			const s = f.severity;
+			const i = s === 'ok' ? 0 : s === 'note' ? 1 : s === 'warning' ? 2 : 3;
+			counts[i] = (counts[i] as number) + 1;
+		}
+	};
+	for (const p of panels) count(p.findings);
+	count(protection);
+	count(service.findings);
 	const summary: Record<Severity, number> = {
-		ok,
-		note,
-		warning,
-		violation: findings.length - ok - note - warning,
+		ok: counts[0] as number,
+		note: counts[1] as number,
+		warning: counts[2] as number,
+		violation: counts[3] as number,
 	};
 
-	return {
-		job: {
+	return new JobResults(
+		{
 			id: doc.id,
 			name: doc.name,
 			address: doc.address,
@@ -545,9 +574,41 @@ export function computeJob(doc: JobDocument): JobResult {
 		panels,
 		protection,
 		service,
-		findings,
 		summary,
-	};
+	);
+}
+
+/** A job's results; `findings`, the flattened list, is made when first read. toJSON gives the plain object. */
+class JobResults implements JobResult {
+	#findings: Finding[] | null = null;
+	constructor(
+		readonly job: JobResult['job'],
+		readonly circuits: CircuitResult[],
+		readonly panels: PanelResult[],
+		readonly protection: Finding[],
+		readonly service: ServiceResult,
+		readonly summary: Record<Severity, number>,
+	) {}
+	get findings(): Finding[] {
+		if (this.#findings) return this.#findings;
+		const findings: Finding[] = [];
+		for (const r of this.circuits) for (const f of r.findings) findings.push(f);
+		for (const p of this.panels) for (const f of p.findings) findings.push(f);
+		for (const f of this.protection) findings.push(f);
+		for (const f of this.service.findings) findings.push(f);
+		return (this.#findings = findings);
+	}
+	toJSON(): JobResult {
+		return {
+			job: this.job,
+			circuits: this.circuits,
+			panels: this.panels,
+			protection: this.protection,
+			service: this.service,
+			findings: this.findings,
+			summary: this.summary,
+		};
+	}
 }
 
 function floorArea(doc: JobDocument): { value: number; source: string; figure: Figure } {

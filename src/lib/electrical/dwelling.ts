@@ -143,6 +143,18 @@ export function cloneBucket(b: LoadBucket): LoadBucket {
 	return mergeBucket(emptyBucket(), b);
 }
 
+// The set and room last added: most loads repeat the room of the one before, and adding it again changes nothing.
+let lastRooms: Set<string> | null = null;
+let lastRoom: string | null = null;
+function addRooms(rooms: Set<string>, ids: readonly string[]): void {
+	for (const r of ids) {
+		if (r === lastRoom && rooms === lastRooms) continue;
+		rooms.add(r);
+		lastRooms = rooms;
+		lastRoom = r;
+	}
+}
+
 /**
  * Adds one load to a bucket. `firstOfKindOnCircuit` says whether this is the circuit's first
  * small-appliance (or laundry) load, so each such circuit is counted once.
@@ -158,15 +170,15 @@ export function addLoad(b: LoadBucket, load: Load, edition: Edition, firstOfKind
 	switch (load.kind) {
 		case 'lighting':
 			b.recordedLightingVA += total;
-			for (const r of load.roomIds) b.rooms.add(r);
+			addRooms(b.rooms, load.roomIds);
 			return;
 		case 'receptacles':
 			// General-use receptacles of a dwelling are part of the 3 VA/ft² unit load.
-			for (const r of load.roomIds) b.rooms.add(r);
+			addRooms(b.rooms, load.roomIds);
 			return;
 		case 'small-appliance':
 			if (firstOfKindOnCircuit) b.smallApplianceCircuits += 1;
-			for (const r of load.roomIds) b.rooms.add(r);
+			addRooms(b.rooms, load.roomIds);
 			return;
 		case 'laundry':
 			if (firstOfKindOnCircuit) b.laundryCircuits += 1;

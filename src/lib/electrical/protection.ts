@@ -68,7 +68,8 @@ function afciRoomsOf(t: CircuitTexts): Room[] {
 }
 const gfciOkText = (t: CircuitTexts) =>
 	`${nameOf(t)} has GFCI protection for receptacles in ${roomList(t.gfciRooms)}.`;
-const afciOkText = (t: CircuitTexts) =>
+/** Message of the afci-required 'ok' finding, which the caller adds when protectionFindings returns true. */
+export const afciOkText = (t: CircuitTexts) =>
 	`${nameOf(t)} has AFCI protection for outlets in ${roomList(afciRoomsOf(t))}.`;
 const afciDeviceText = (t: CircuitTexts) =>
 	`${nameOf(t)} relies on an outlet branch-circuit AFCI device; permitted only under the conditions listed in ${t.afciRule} (wiring method and length to the first outlet).`;
@@ -77,23 +78,28 @@ const afciMissingText = (t: CircuitTexts) =>
 const afciMissingExistingText = (t: CircuitTexts) =>
 	`${nameOf(t)} supplies outlets in ${roomList(afciRoomsOf(t))} without AFCI protection; an existing circuit, required when it is extended or modified.`;
 
-/** Adds the GFCI and AFCI findings of one circuit to `out`. */
+/**
+ * Adds the GFCI and AFCI findings of one circuit (its loads: `loads[from]` to before `loads[to]`) to `out`, except the AFCI 'ok' finding: returns true
+ * when it is due, for the caller to add last (afciOkText, rule t.afciRule) when its findings are read.
+ */
 export function protectionFindings(
 	c: Circuit,
 	loads: readonly Load[],
+	from: number,
+	to: number,
 	roomsById: ReadonlyMap<string, Room>,
 	edition: Edition,
 	t: CircuitTexts,
-	target: Target,
+	owner: { readonly target: Target },
 	out: Finding[],
-): void {
-	if (c.poles === 3) return;
+): boolean {
+	if (c.poles === 3) return false;
 	// Room lists are short: arrays kept in first-seen order, as a Set would be, cost less than Sets.
 	// Most circuits and their loads name the same one room: the list is made only when they differ.
 	let roomIds: readonly string[] = c.roomIds;
 	let own = false;
-	for (const l of loads)
-		for (const r of l.roomIds)
+	for (let k = from; k < to; k++)
+		for (const r of (loads[k] as Load).roomIds)
 			if (!roomIds.includes(r)) {
 				if (!own) {
 					roomIds = dedupe(c.roomIds);
@@ -102,11 +108,12 @@ export function protectionFindings(
 				(roomIds as string[]).push(r);
 			}
 	if (!own && hasDuplicates(roomIds)) roomIds = dedupe(roomIds);
-	if (roomIds.length === 0) return;
+	if (roomIds.length === 0) return false;
 	// Receptacles are placed by their own rooms where recorded, else by the circuit's rooms.
 	let receptacleLoads = 0;
 	let countertop = false;
-	for (const l of loads) {
+	for (let k = from; k < to; k++) {
+		const l = loads[k] as Load;
 		if (!isReceptacleLoad(l)) continue;
 		receptacleLoads++;
 		if (l.kind === 'small-appliance') countertop = true;
@@ -115,9 +122,15 @@ export function protectionFindings(
 
 	// GFCI: receptacles; 2017 only 125 V 15/20 A, from 2020 125–250 V on single-phase circuits.
 	const gfciVoltageOk = edition === '2017' ? c.poles === 1 && c.ratingA <= 20 : true;
-	if (receptacleLoads > 0 && gfciVoltageOk) {
+	// Most circuits need no GFCI: the room lists are made only when one does (duplicates do not change the need).
+	if (
+		receptacleLoads > 0 &&
+		gfciVoltageOk &&
+		gfciNeeded(c, loads, from, to, roomsById, edition, countertop)
+	) {
 		const receptacleRooms: string[] = [];
-		for (const l of loads) {
+		for (let k = from; k < to; k++) {
+			const l = loads[k] as Load;
 			if (!isReceptacleLoad(l)) continue;
 			for (const r of l.roomIds.length > 0 ? l.roomIds : c.roomIds)
 				if (!receptacleRooms.includes(r)) receptacleRooms.push(r);
@@ -136,7 +149,7 @@ export function protectionFindings(
 		if (need !== 'no') {
 			if (hasGfci(c)) {
 				t.gfciRooms = where;
-				out.push(findingOf('ok', 'gfci-required', gfciOkText, t, rule, target));
+				out.push(findingOf('ok', 'gfci-required', gfciOkText, t, rule, owner.target));
 			} else {
 				const sev = existing ? 'note' : need === 'if-unfinished' ? 'warning' : 'violation';
 				const msg =
@@ -144,7 +157,7 @@ export function protectionFindings(
 					(need === 'if-unfinished' ? '; required if the basement is unfinished' : '') +
 					(existing ? '; an existing circuit, required when it is extended or modified' : '') +
 					'.';
-				out.push(finding(sev, 'gfci-required', msg, rule, target));
+				out.push(finding(sev, 'gfci-required', msg, rule, owner.target));
 			}
 		}
 	}
@@ -167,9 +180,9 @@ export function protectionFindings(
 			t.afciRule = rule;
 			const x = t;
 			if (c.breakerType === 'afci' || c.breakerType === 'dual-function') {
-				out.push(findingOf('ok', 'afci-required', afciOkText, x, rule, target));
+				return true;
 			} else if (c.afciAtDevice) {
-				out.push(findingOf('note', 'afci-required', afciDeviceText, x, rule, target));
+				out.push(findingOf('note', 'afci-required', afciDeviceText, x, rule, owner.target));
 			} else {
 				out.push(
 					findingOf(
@@ -178,12 +191,34 @@ export function protectionFindings(
 						existing ? afciMissingExistingText : afciMissingText,
 						x,
 						rule,
-						target,
+						owner.target,
 					),
 				);
 			}
 		}
 	}
+	return false;
+}
+
+/** Whether any room of the circuit's receptacle loads needs GFCI protection (gfciNeed). */
+function gfciNeeded(
+	c: Circuit,
+	loads: readonly Load[],
+	from: number,
+	to: number,
+	roomsById: ReadonlyMap<string, Room>,
+	edition: Edition,
+	countertop: boolean,
+): boolean {
+	for (let k = from; k < to; k++) {
+		const l = loads[k] as Load;
+		if (!isReceptacleLoad(l)) continue;
+		for (const r of l.roomIds.length > 0 ? l.roomIds : c.roomIds) {
+			const room = roomsById.get(r);
+			if (room && gfciNeed(room.type, edition, countertop) !== 'no') return true;
+		}
+	}
+	return false;
 }
 
 function hasDuplicates(ids: readonly string[]): boolean {
