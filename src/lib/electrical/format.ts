@@ -61,20 +61,15 @@ export type TextOf<T> = (arg: T) => string;
  * values fixed when they are built.
  */
 
-class LazyFigure implements Figure {
-	value: number;
-	unit: Unit;
-	rule: string;
+/** A text written when first read: a string, or a function of one argument called once. */
+class LazyText {
 	#text: string | TextOf<unknown>;
 	#arg: unknown;
-	constructor(value: number, unit: Unit, rule: string, text: string | TextOf<unknown>, arg: unknown) {
-		this.value = value;
-		this.unit = unit;
-		this.rule = rule;
+	constructor(text: string | TextOf<unknown>, arg: unknown) {
 		this.#text = text;
 		this.#arg = arg;
 	}
-	get working(): string {
+	protected text(): string {
 		const t = this.#text;
 		if (typeof t === 'string') return t;
 		const s = t(this.#arg);
@@ -82,18 +77,31 @@ class LazyFigure implements Figure {
 		this.#arg = undefined;
 		return s;
 	}
+}
+
+class LazyFigure extends LazyText implements Figure {
+	value: number;
+	unit: Unit;
+	rule: string;
+	constructor(value: number, unit: Unit, rule: string, text: string | TextOf<unknown>, arg: unknown) {
+		super(text, arg);
+		this.value = value;
+		this.unit = unit;
+		this.rule = rule;
+	}
+	get working(): string {
+		return this.text();
+	}
 	toJSON(): Figure {
 		return { value: this.value, unit: this.unit, rule: this.rule, working: this.working };
 	}
 }
 
-class LazyFinding implements Finding {
+class LazyFinding extends LazyText implements Finding {
 	severity: Severity;
 	code: string;
 	rule: string;
 	target: Target;
-	#text: string | TextOf<unknown>;
-	#arg: unknown;
 	constructor(
 		severity: Severity,
 		code: string,
@@ -102,20 +110,14 @@ class LazyFinding implements Finding {
 		rule: string,
 		target: Target,
 	) {
+		super(text, arg);
 		this.severity = severity;
 		this.code = code;
 		this.rule = rule;
 		this.target = target;
-		this.#text = text;
-		this.#arg = arg;
 	}
 	get message(): string {
-		const t = this.#text;
-		if (typeof t === 'string') return t;
-		const s = t(this.#arg);
-		this.#text = s;
-		this.#arg = undefined;
-		return s;
+		return this.text();
 	}
 	toJSON(): Finding {
 		return {
