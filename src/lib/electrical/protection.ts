@@ -340,53 +340,20 @@ export function requiredCircuitFindings(
 			),
 		);
 
-	const bathRule = section('requiredBathroom', edition);
-	const baths = rooms.filter((r) => r.type === 'bathroom');
-	if (baths.length > 0) {
-		if (baths.some((r) => facts.receptacle20ARooms.has(r.id))) {
-			out.push(
-				finding(
-					'ok',
-					'bathroom-circuit',
-					'A 120 V 20 A circuit supplies bathroom receptacles.',
-					bathRule,
-					job,
-				),
-			);
-		} else
-			out.push(
-				finding(
-					missing,
-					'bathroom-circuit',
-					'No 120 V 20 A circuit supplies the bathroom receptacles.',
-					bathRule,
-					job,
-				),
-			);
-	}
-	const garageRule = section('requiredGarage', edition);
-	const garages = rooms.filter((r) => r.type === 'garage');
-	if (garages.length > 0) {
-		if (garages.some((r) => facts.receptacle20ARooms.has(r.id))) {
-			out.push(
-				finding(
-					'ok',
-					'garage-circuit',
-					'A 120 V 20 A circuit supplies the garage receptacles.',
-					garageRule,
-					job,
-				),
-			);
-		} else
-			out.push(
-				finding(
-					missing,
-					'garage-circuit',
-					'No 120 V 20 A circuit supplies the garage receptacles.',
-					garageRule,
-					job,
-				),
-			);
+	// 210.11(C)(3) and (C)(4): a 120 V 20 A circuit for the bathroom and for the garage receptacles.
+	const required20A = [
+		['requiredBathroom', 'bathroom', 'bathroom-circuit', 'bathroom receptacles', 'the bathroom receptacles'],
+		['requiredGarage', 'garage', 'garage-circuit', 'the garage receptacles', 'the garage receptacles'],
+	] as const;
+	for (const [key, type, code, okWhat, missingWhat] of required20A) {
+		const ofType = rooms.filter((r) => r.type === type);
+		if (ofType.length === 0) continue;
+		const rule = section(key, edition);
+		out.push(
+			ofType.some((r) => facts.receptacle20ARooms.has(r.id))
+				? finding('ok', code, `A 120 V 20 A circuit supplies ${okWhat}.`, rule, job)
+				: finding(missing, code, `No 120 V 20 A circuit supplies ${missingWhat}.`, rule, job),
+		);
 	}
 	return out;
 }
