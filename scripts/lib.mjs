@@ -99,20 +99,26 @@ export async function waitForHttp(url, timeoutMs = 30_000) {
 	throw new Error(`${url} did not answer within ${timeoutMs / 1000} s`);
 }
 
-/** Debian's chromium for browser tests; installed when missing and running as root. */
-export function ensureChromium() {
-	const bin = process.env.CHROMIUM_PATH || '/usr/bin/chromium';
-	if (fs.existsSync(bin)) return bin;
+/**
+ * Debian packages the browser and document tests need: chromium, and poppler-utils (pdftoppm) to
+ * render PDF pages. Installed when missing and running as root; otherwise the command is printed.
+ */
+export function ensureTestPackages() {
+	const needed = [
+		{ bin: process.env.CHROMIUM_PATH || '/usr/bin/chromium', pkg: 'chromium' },
+		{ bin: '/usr/bin/pdftoppm', pkg: 'poppler-utils' },
+	].filter((n) => !fs.existsSync(n.bin));
+	if (needed.length === 0) return;
+	const pkgs = needed.map((n) => n.pkg);
 	if (process.getuid?.() !== 0) {
 		throw new Error(
-			'Chromium is missing. Install it with: sudo apt-get update && sudo apt-get install -y chromium',
+			`Missing ${pkgs.join(', ')}. Install with: sudo apt-get update && sudo apt-get install -y ${pkgs.join(' ')}`,
 		);
 	}
-	console.log('[test] installing chromium from Debian packages…');
+	console.log(`[test] installing ${pkgs.join(', ')} from Debian packages…`);
 	execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit' });
-	execFileSync('apt-get', ['install', '-y', '-qq', 'chromium'], {
+	execFileSync('apt-get', ['install', '-y', '-qq', ...pkgs], {
 		stdio: 'inherit',
 		env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
 	});
-	return bin;
 }

@@ -6,7 +6,7 @@ import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import * as db from './db.mjs';
-import { buildIfStale, ensureChromium, knex, root, startServer, waitForHttp } from './lib.mjs';
+import { buildIfStale, ensureTestPackages, knex, root, startServer, waitForHttp } from './lib.mjs';
 
 const slot = Number(process.env.AMPLEDGER_TEST_SLOT || 0);
 const base = path.join(root, '.data', `test-${slot}`);
@@ -84,7 +84,7 @@ function runVitest() {
 try {
 	fs.mkdirSync(base, { recursive: true });
 	if (!onlyUnit) {
-		ensureChromium();
+		ensureTestPackages();
 		await db.start(env);
 		dbStarted = true;
 		await db.recreateDatabase(env);
