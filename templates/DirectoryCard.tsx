@@ -9,6 +9,7 @@ import { printable } from '../src/lib/documents/fonts';
 import type { DocumentData, PaperSize } from '../src/lib/documents/types';
 import type { PanelResult } from '../src/lib/electrical';
 import { COLOR, PORTRAIT, longDate, packPages, s } from './common';
+import { PANEL_CAUTION } from '../src/lib/cautions';
 import { cellHeight, cellLines, GridCanvas, type GridCell, type GridRow } from './grid';
 import { panelSlots, type Slot } from './PanelSchedule';
 
@@ -21,8 +22,6 @@ const NO_W = 24;
 const AMP_W = 30;
 const LABEL_SIZE = 9.5;
 const LABEL_LH = 11.8;
-const CAUTION =
-	'Switch the breaker off and verify with a tester before any work. Work inside a panelboard is for licensed electricians.';
 
 function labelFor(slot: Slot): { text: string; color: string; bold: boolean } {
 	if (slot.kind === 'space') return { text: 'SPACE (no breaker)', color: COLOR.faint, bold: false };
@@ -168,7 +167,7 @@ export function directoryCardPages(
 								<Text style={{ fontSize: 6.5, color: COLOR.muted, marginTop: 1 }}>{data.mapUrl}</Text>
 							)}
 							<Text style={{ fontSize: 8.5, fontWeight: 700, color: COLOR.violation, marginTop: 5 }}>
-								{CAUTION}
+								{PANEL_CAUTION}
 							</Text>
 							<Text style={{ fontSize: 7, color: COLOR.muted, marginTop: 4 }}>
 								{data.firm.name} · licence {data.firm.licenceNumber}

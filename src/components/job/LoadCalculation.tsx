@@ -1,9 +1,7 @@
+import { LIMITS_NOTICE } from '../../lib/cautions';
 import type { MethodResult, ServiceResult } from '../../lib/electrical/compute-job';
 import { num } from '../../lib/electrical/format';
 import type { Figure, Line } from '../../lib/electrical/types';
-
-const CAUTION =
-	'Ampledger helps prepare and check documents; it does not certify a design. Local codes, the AHJ’s amendments and licensed practice decide.';
 
 function value(f: Figure): string {
 	return f.unit === 'count' ? num(f.value) : `${num(f.value)} ${f.unit}`;
@@ -82,7 +80,7 @@ export default function LoadCalculation({ service }: { service: ServiceResult })
 	return (
 		<div className="space-y-4" data-testid="load-calculation">
 			<p className="rounded-md border border-signal-warning/40 bg-amber-50 p-3 text-sm text-ink-900">
-				{CAUTION}
+				{LIMITS_NOTICE}
 			</p>
 			<div className="flex flex-wrap gap-x-6 gap-y-1 text-sm">
 				<span>
