@@ -266,6 +266,45 @@ interface CircuitLookup {
 	get(id: string): Circuit | undefined;
 }
 
+/**
+ * Index in doc.circuits of a circuit id. Indexing every circuit of a large job costs more than the
+ * rest of its setup, so only the ids other records name (feeders, multiwire partners) are indexed
+ * up front. Loads usually name their circuits in document order: `find` looks from where the last
+ * one was found, and builds the full index only once such searches have compared as many ids as
+ * there are circuits.
+ */
+class CircuitIndex {
+	#named = new Map<string, number>();
+	#all: Map<string, number> | null = null;
+	#budget: number;
+	constructor(readonly circuits: readonly Circuit[]) {
+		this.#budget = circuits.length;
+	}
+	/** Indexes a circuit named by another record. */
+	name(id: string, i: number): void {
+		this.#named.set(id, i);
+	}
+	get(id: string): number | undefined {
+		return this.#named.get(id) ?? this.#full().get(id);
+	}
+	/** The index of `id`, looked for from `start` on first. */
+	find(id: string, start: number): number | undefined {
+		if (this.#all === null) {
+			const cs = this.circuits;
+			for (let i = start; i < cs.length && this.#budget > 0; i++, this.#budget--)
+				if ((cs[i] as Circuit).id === id) return i;
+		}
+		return this.#full().get(id);
+	}
+	#full(): Map<string, number> {
+		if (this.#all === null) {
+			this.#all = new Map();
+			for (let i = 0; i < this.circuits.length; i++) this.#all.set((this.circuits[i] as Circuit).id, i);
+		}
+		return this.#all;
+	}
+}
+
 const EXCLUDED_FROM_AREA = new Set(['garage', 'outdoor', 'attic', 'crawl-space']);
 
 function roomCounts(r: Room): boolean {
@@ -317,20 +356,27 @@ export function computeJob(doc: JobDocument): JobResult {
 	for (const p of doc.panels) if (p.fedFromCircuitId !== null) panelFedBy.set(p.fedFromCircuitId, p.id);
 
 	// Circuits by id as their index in doc.circuits; loads by that index.
-	const indexById = new Map<string, number>();
+	const named = new Set<string>(panelFedBy.keys());
+	for (const c of doc.circuits) if (c.multiwireWith !== null) named.add(c.multiwireWith);
+	const index = new CircuitIndex(doc.circuits);
 	const circuitsById: CircuitLookup = {
 		get: (id) => {
-			const i = indexById.get(id);
+			const i = index.get(id);
 			return i === undefined ? undefined : doc.circuits[i];
 		},
 	};
 	let existingDwelling = false;
+	// Circuits of one panel usually follow each other: the lookup is skipped for a repeated panel.
+	let lastPanelId: string | null = null;
+	let lastWork: PanelWork | undefined;
 	for (let i = 0; i < doc.circuits.length; i++) {
 		const c = doc.circuits[i] as Circuit;
-		indexById.set(c.id, i);
+		if (named.size > 0 && named.has(c.id)) index.name(c.id, i);
 		if (c.status === 'removed') continue;
 		if (c.status === 'existing' || c.status === 'modified') existingDwelling = true;
-		const w = work.get(c.panelId);
+		const w = c.panelId === lastPanelId ? lastWork : work.get(c.panelId);
+		lastPanelId = c.panelId;
+		lastWork = w;
 		if (w) {
 			w.circuits.push(c);
 			w.indexes.push(i);
@@ -338,7 +384,7 @@ export function computeJob(doc: JobDocument): JobResult {
 	}
 	const feedsPanel = new Uint8Array(doc.circuits.length);
 	for (const id of panelFedBy.keys()) {
-		const i = indexById.get(id);
+		const i = index.get(id);
 		if (i !== undefined) feedsPanel[i] = 1;
 	}
 	// Loads grouped by circuit in one list, in document order: circuit i's are from loadStart[i] to before loadStart[i + 1].
@@ -349,7 +395,7 @@ export function computeJob(doc: JobDocument): JobResult {
 	let lastIndex: number | undefined;
 	for (let k = 0; k < doc.loads.length; k++) {
 		const id = (doc.loads[k] as Load).circuitId;
-		const i = id === lastId ? lastIndex : indexById.get(id);
+		const i = id === lastId ? lastIndex : index.find(id, lastIndex === undefined ? 0 : lastIndex + 1);
 		lastId = id;
 		lastIndex = i;
 		loadCircuit[k] = i === undefined ? -1 : i;
@@ -429,14 +475,15 @@ export function computeJob(doc: JobDocument): JobResult {
 		for (let k = 0; k < w.circuits.length; k++) {
 			runCircuit(pass, w, legIndex, places, w.circuits[k] as Circuit, w.indexes[k] as number);
 		}
-		// Everything this panel supplies, for its calculated load.
-		const subtree = mergeBucket(cloneBucket(w.own.existing), w.own.added);
+		// Everything this panel supplies, for its calculated load. The sole main panel's rooms are not
+		// read (its area is the job's), so they are not gathered.
+		const whole = panelId === soleRoot;
+		const subtree = mergeBucket(cloneBucket(w.own.existing, !whole), w.own.added, !whole);
 		for (const kid of children.get(panelId) ?? []) {
 			const k = work.get(kid);
-			if (k?.subtree) mergeBucket(subtree, k.subtree);
+			if (k?.subtree) mergeBucket(subtree, k.subtree, !whole);
 		}
 		w.subtree = subtree;
-		const whole = panelId === soleRoot;
 		let area = 0;
 		if (!whole)
 			for (const rid of subtree.rooms) {
@@ -471,13 +518,14 @@ export function computeJob(doc: JobDocument): JobResult {
 		circuits.push(r);
 	}
 
-	// Service.
+	// Service. Only the measured-demand method reads rooms (those with added loads).
 	const all = emptyBucket();
 	const added = emptyBucket();
+	const addedRooms = doc.service.existingLoad !== null;
 	for (const w of work.values()) {
-		mergeBucket(all, w.own.existing);
-		mergeBucket(all, w.own.added);
-		mergeBucket(added, w.own.added);
+		mergeBucket(all, w.own.existing, false);
+		mergeBucket(all, w.own.added, false);
+		mergeBucket(added, w.own.added, addedRooms);
 	}
 	const service = serviceResult(doc, all, added, existingDwelling, jobArea, roomsById, jobId);
 	const rootWork = soleRoot !== undefined ? work.get(soleRoot) : undefined;
@@ -651,17 +699,10 @@ function panelResult(
 	const p = w.panel;
 	const target = { kind: 'panel', id: p.id } as const;
 	const findings: Finding[] = [];
-	const slots: PositionSlot[] = [];
-	for (let pos = 1; pos <= p.spaces; pos++) {
-		slots.push({
-			position: pos,
-			row: rowOf(pos),
-			side: sideOf(pos),
-			leg: legOf(pos, p.voltageSystem),
-			circuitId: null,
-		});
-	}
-	for (const c of w.circuits) {
+	// The circuit in each position (its index in w.circuits), -1 when free; the slots are listed when first read.
+	const occupant = new Int32Array(p.spaces).fill(-1);
+	for (let k = 0; k < w.circuits.length; k++) {
+		const c = w.circuits[k] as Circuit;
 		const last = c.position + 2 * (c.poles - 1);
 		let ct: Target | null = null;
 		if (last > p.spaces) {
@@ -669,12 +710,12 @@ function panelResult(
 			findings.push(beyondSpaces(c, p, ct));
 		}
 		for (let t = c.position; t <= last; t += 2) {
-			const slot = slots[t - 1];
-			if (!slot) continue;
-			if (slot.circuitId !== null) {
+			const at = occupant[t - 1];
+			if (at === undefined) continue;
+			if (at >= 0) {
 				ct ??= { kind: 'circuit', id: c.id };
-				findings.push(positionConflict(c, circuitsById.get(slot.circuitId), slot.circuitId, t, p, ct));
-			} else slot.circuitId = c.id;
+				findings.push(positionConflict(c, w.circuits[at] as Circuit, t, p, ct));
+			} else occupant[t - 1] = k;
 		}
 		if (c.multiwireWith !== null && c.id < c.multiwireWith) {
 			checkMultiwire(c, circuitsById.get(c.multiwireWith), p, ed, findings);
@@ -683,10 +724,12 @@ function panelResult(
 			if (other && other.multiwireWith !== c.id) checkMultiwire(c, other, p, ed, findings);
 		}
 	}
-	const freePositions: number[] = [];
-	for (const s of slots) if (s.circuitId === null) freePositions.push(s.position);
-	const used = p.spaces - freePositions.length;
-	if (freePositions.length === 0) {
+	let free = 0;
+	for (const at of occupant) if (at < 0) free++;
+	const used = p.spaces - free;
+	let slots: PositionSlot[] | null = null;
+	let freePositions: number[] | null = null;
+	if (free === 0) {
 		findings.push(
 			finding('note', 'panel-full', () => `Panel ${p.name} has no free positions.`, COMMON_PRACTICE, target),
 		);
@@ -855,10 +898,18 @@ function panelResult(
 		kind: p.kind,
 		voltageSystem: p.voltageSystem,
 		spaces: p.spaces,
-		positions: slots,
+		get positions() {
+			return (slots ??= positionSlots(p, w.circuits, occupant));
+		},
 		used,
-		free: freePositions.length,
-		freePositions,
+		free,
+		get freePositions() {
+			if (freePositions === null) {
+				freePositions = [];
+				for (let i = 0; i < occupant.length; i++) if ((occupant[i] as number) < 0) freePositions.push(i + 1);
+			}
+			return freePositions;
+		},
 		legs: legLoads,
 		imbalance,
 		connectedVA,
@@ -871,6 +922,22 @@ function panelResult(
 		feederCircuitId,
 		findings,
 	};
+}
+
+/** The position slots of a panel from the circuit in each position (index in `circuits`, -1 when free). */
+function positionSlots(p: Panel, circuits: readonly Circuit[], occupant: Int32Array): PositionSlot[] {
+	const slots: PositionSlot[] = [];
+	for (let pos = 1; pos <= p.spaces; pos++) {
+		const at = occupant[pos - 1] as number;
+		slots.push({
+			position: pos,
+			row: rowOf(pos),
+			side: sideOf(pos),
+			leg: legOf(pos, p.voltageSystem),
+			circuitId: at < 0 ? null : (circuits[at] as Circuit).id,
+		});
+	}
+	return slots;
 }
 
 function beyondSpaces(c: Circuit, p: Panel, target: Target): Finding {
@@ -887,8 +954,7 @@ function beyondSpaces(c: Circuit, p: Panel, target: Target): Finding {
 
 function positionConflict(
 	c: Circuit,
-	other: Circuit | undefined,
-	otherId: string,
+	other: Circuit,
 	position: number,
 	p: Panel,
 	target: Target,
@@ -897,7 +963,7 @@ function positionConflict(
 		'violation',
 		'position-conflict',
 		() =>
-			`${circuitName(c)} and ${other ? circuitName(other) : otherId} both take position ${position} of panel ${p.name}.`,
+			`${circuitName(c)} and ${circuitName(other)} both take position ${position} of panel ${p.name}.`,
 		COMMON_PRACTICE,
 		target,
 	);

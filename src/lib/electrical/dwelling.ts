@@ -82,9 +82,9 @@ export function emptyBucket(): LoadBucket {
 	};
 }
 
-/** Adds `from` into `into` (mutates `into`). */
-export function mergeBucket(into: LoadBucket, from: LoadBucket): LoadBucket {
-	for (const r of from.rooms) into.rooms.add(r);
+/** Adds `from` into `into` (mutates `into`); with `rooms` false the rooms are left out, for a bucket whose rooms are never read. */
+export function mergeBucket(into: LoadBucket, from: LoadBucket, rooms = true): LoadBucket {
+	if (rooms) for (const r of from.rooms) into.rooms.add(r);
 	into.recordedLightingVA += from.recordedLightingVA;
 	into.smallApplianceCircuits += from.smallApplianceCircuits;
 	into.laundryCircuits += from.laundryCircuits;
@@ -138,9 +138,9 @@ export function fastenedDemand(
 	return d >= three ? { va: d, floored: false } : { va: three, floored: true };
 }
 
-/** Copy of a bucket. */
-export function cloneBucket(b: LoadBucket): LoadBucket {
-	return mergeBucket(emptyBucket(), b);
+/** Copy of a bucket (without its rooms when `rooms` is false). */
+export function cloneBucket(b: LoadBucket, rooms = true): LoadBucket {
+	return mergeBucket(emptyBucket(), b, rooms);
 }
 
 // The set and room last added: most loads repeat the room of the one before, and adding it again changes nothing.

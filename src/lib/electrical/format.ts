@@ -1,8 +1,10 @@
 import type { Figure, Finding, Line, Severity, Target, Unit } from './types';
 
+const POWERS_OF_TEN = [1, 10, 100, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8];
+
 /** Rounds to a fixed number of decimals, removing binary noise (0.1 + 0.2 → 0.3). */
 export function roundTo(value: number, decimals: number): number {
-	const f = 10 ** decimals;
+	const f = POWERS_OF_TEN[decimals] ?? 10 ** decimals;
 	return Math.round((value + Number.EPSILON * Math.sign(value)) * f) / f;
 }
 
