@@ -952,18 +952,11 @@ function beyondSpaces(c: Circuit, p: Panel, target: Target): Finding {
 	);
 }
 
-function positionConflict(
-	c: Circuit,
-	other: Circuit,
-	position: number,
-	p: Panel,
-	target: Target,
-): Finding {
+function positionConflict(c: Circuit, other: Circuit, position: number, p: Panel, target: Target): Finding {
 	return finding(
 		'violation',
 		'position-conflict',
-		() =>
-			`${circuitName(c)} and ${circuitName(other)} both take position ${position} of panel ${p.name}.`,
+		() => `${circuitName(c)} and ${circuitName(other)} both take position ${position} of panel ${p.name}.`,
 		COMMON_PRACTICE,
 		target,
 	);
