@@ -12,7 +12,7 @@ import {
 	optionalMethod,
 	standardMethod,
 } from './dwelling';
-import type { GeneralLoadOptions, LoadBucket, Supply } from './dwelling';
+import type { GeneralLoadOptions, LoadBucket, RoomIndex, Supply } from './dwelling';
 import { fig, finding, num, q, roundTo } from './format';
 import { isContinuous, isMotor, unitVA } from './load-values';
 import { circuitVoltage, legOf, legsOf, positionsTaken, rowOf, sideOf } from './positions';
@@ -336,7 +336,13 @@ export function computeJob(doc: JobDocument): JobResult {
 	const ctx: CircuitContext = { edition: ed, terminalC: doc.terminalTemperatureC, figures: new Map() };
 	const jobId = doc.id ?? doc.name;
 	const roomsById = new Map<string, Room>();
-	for (const r of doc.rooms) roomsById.set(r.id, r);
+	const roomIds = new Map<string, number>();
+	for (let i = 0; i < doc.rooms.length; i++) {
+		const r = doc.rooms[i] as Room;
+		roomsById.set(r.id, r);
+		roomIds.set(r.id, i);
+	}
+	const roomIndex: RoomIndex = { byId: roomIds, count: doc.rooms.length };
 
 	const work = new Map<string, PanelWork>();
 	for (const p of doc.panels) {
@@ -344,7 +350,7 @@ export function computeJob(doc: JobDocument): JobResult {
 			panel: p,
 			circuits: [],
 			indexes: [],
-			own: { existing: emptyBucket(), added: emptyBucket() },
+			own: { existing: emptyBucket(roomIndex), added: emptyBucket(roomIndex) },
 			subtree: null,
 			connectedVA: 0,
 			legAmps: legsOf(p.voltageSystem).map(() => 0),
@@ -486,9 +492,9 @@ export function computeJob(doc: JobDocument): JobResult {
 		w.subtree = subtree;
 		let area = 0;
 		if (!whole)
-			for (const rid of subtree.rooms) {
-				const room = roomsById.get(rid);
-				if (room && roomCounts(room)) area += room.areaFt2;
+			for (const i of subtree.rooms.order) {
+				const room = doc.rooms[i] as Room;
+				if (roomCounts(room)) area += room.areaFt2;
 			}
 		const opts: GeneralLoadOptions = whole
 			? { edition: ed, areaFt2: jobArea.value, areaSource: jobArea.source, minimumCircuits: true }
@@ -519,15 +525,15 @@ export function computeJob(doc: JobDocument): JobResult {
 	}
 
 	// Service. Only the measured-demand method reads rooms (those with added loads).
-	const all = emptyBucket();
-	const added = emptyBucket();
+	const all = emptyBucket(roomIndex);
+	const added = emptyBucket(roomIndex);
 	const addedRooms = doc.service.existingLoad !== null;
 	for (const w of work.values()) {
 		mergeBucket(all, w.own.existing, false);
 		mergeBucket(all, w.own.added, false);
 		mergeBucket(added, w.own.added, addedRooms);
 	}
-	const service = serviceResult(doc, all, added, existingDwelling, jobArea, roomsById, jobId);
+	const service = serviceResult(doc, all, added, existingDwelling, jobArea, jobId);
 	const rootWork = soleRoot !== undefined ? work.get(soleRoot) : undefined;
 	if (rootWork) {
 		const lowest = service.methods.find((m) => m.method === service.lowestMethod);
@@ -1094,7 +1100,6 @@ function serviceResult(
 	added: LoadBucket,
 	existingDwelling: boolean,
 	area: { value: number; source: string; figure: Figure },
-	roomsById: ReadonlyMap<string, Room>,
 	jobId: string,
 ): ServiceResult {
 	const ed = doc.codeEdition;
@@ -1195,9 +1200,9 @@ function serviceResult(
 	const measured = svc.existingLoad;
 	if (measured) {
 		let addedArea = 0;
-		for (const rid of added.rooms) {
-			const room = roomsById.get(rid);
-			if (room && (room.inFloorArea ?? !EXCLUDED_FROM_AREA.has(room.type))) addedArea += room.areaFt2;
+		for (const i of added.rooms.order) {
+			const room = doc.rooms[i] as Room;
+			if (roomCounts(room)) addedArea += room.areaFt2;
 		}
 		const md = measuredDemandMethod(measured.peakDemandKW, added, addedArea, ed);
 		methods.push(

@@ -11,10 +11,45 @@ import { section, sections } from './sections';
 import { columnApct, columnBpct, columnCkW } from './tables';
 import type { Edition, Figure, Line } from './types';
 
+/** The job's rooms: index in doc.rooms by id, and how many there are. */
+export interface RoomIndex {
+	byId: ReadonlyMap<string, number>;
+	count: number;
+}
+
+/**
+ * A set of the job's rooms, kept as their indexes in doc.rooms in the order first added. A large
+ * job has a few sets per panel, each of dozens of rooms: a bit per room costs less than a hash set.
+ */
+export class RoomSet {
+	/** Indexes in doc.rooms, in the order first added. */
+	readonly order: number[] = [];
+	#bits: Uint32Array | null = null;
+	constructor(readonly index: RoomIndex) {}
+	/** Adds the room of index `i`. */
+	addIndex(i: number): void {
+		const bits = (this.#bits ??= new Uint32Array((this.index.count >>> 5) + 1));
+		const w = i >>> 5;
+		const bit = 1 << (i & 31);
+		if (((bits[w] as number) & bit) !== 0) return;
+		bits[w] = (bits[w] as number) | bit;
+		this.order.push(i);
+	}
+	/** Adds a room by id; ids of no room of the job are left out. */
+	add(id: string): void {
+		const i = this.index.byId.get(id);
+		if (i !== undefined) this.addIndex(i);
+	}
+	/** Adds every room of `from`. */
+	addAll(from: RoomSet): void {
+		for (const i of from.order) this.addIndex(i);
+	}
+}
+
 /** Loads of one part of the installation, gathered by how Article 220 treats them. */
 export interface LoadBucket {
 	/** Rooms served by general lighting and receptacle loads. */
-	rooms: Set<string>;
+	rooms: RoomSet;
 	/** Connected VA of loads of kind lighting (compared with the unit load by area). */
 	recordedLightingVA: number;
 	smallApplianceCircuits: number;
@@ -50,10 +85,10 @@ export interface LoadBucket {
 	ev120VA: number;
 }
 
-/** An empty bucket. */
-export function emptyBucket(): LoadBucket {
+/** An empty bucket of the job whose rooms `roomIndex` indexes. */
+export function emptyBucket(roomIndex: RoomIndex): LoadBucket {
 	return {
-		rooms: new Set(),
+		rooms: new RoomSet(roomIndex),
 		recordedLightingVA: 0,
 		smallApplianceCircuits: 0,
 		laundryCircuits: 0,
@@ -84,7 +119,7 @@ export function emptyBucket(): LoadBucket {
 
 /** Adds `from` into `into` (mutates `into`); with `rooms` false the rooms are left out, for a bucket whose rooms are never read. */
 export function mergeBucket(into: LoadBucket, from: LoadBucket, rooms = true): LoadBucket {
-	if (rooms) for (const r of from.rooms) into.rooms.add(r);
+	if (rooms) into.rooms.addAll(from.rooms);
 	into.recordedLightingVA += from.recordedLightingVA;
 	into.smallApplianceCircuits += from.smallApplianceCircuits;
 	into.laundryCircuits += from.laundryCircuits;
@@ -140,13 +175,13 @@ export function fastenedDemand(
 
 /** Copy of a bucket (without its rooms when `rooms` is false). */
 export function cloneBucket(b: LoadBucket, rooms = true): LoadBucket {
-	return mergeBucket(emptyBucket(), b, rooms);
+	return mergeBucket(emptyBucket(b.rooms.index), b, rooms);
 }
 
 // The set and room last added: most loads repeat the room of the one before, and adding it again changes nothing.
-let lastRooms: Set<string> | null = null;
+let lastRooms: RoomSet | null = null;
 let lastRoom: string | null = null;
-function addRooms(rooms: Set<string>, ids: readonly string[]): void {
+function addRooms(rooms: RoomSet, ids: readonly string[]): void {
 	for (const r of ids) {
 		if (r === lastRoom && rooms === lastRooms) continue;
 		rooms.add(r);
