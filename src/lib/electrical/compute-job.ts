@@ -803,7 +803,7 @@ function panelResult(
 		calculated,
 		'VA',
 		total?.rule ?? `NEC ${ed} Article 220 Part III`,
-		total?.working ?? '',
+		total ? () => total.working : '',
 	);
 	const calcA = calculated / supply.divisor;
 	const calculatedA = fig(

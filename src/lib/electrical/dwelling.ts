@@ -379,6 +379,17 @@ export function dryerDemandFloor(eachVA: readonly number[]): { va: number; count
 
 /** Lighting demand of Table 220.42 / 220.45: first 3000 VA at 100 %, up to 120,000 VA at 35 %, rest at 25 %. */
 export function lightingDemand(va: number): { va: number; working: string } {
+	return { va: lightingDemandVA(va), working: lightingDemandText(va) };
+}
+
+function lightingDemandVA(va: number): number {
+	const first = Math.min(va, 3000);
+	const second = Math.max(0, Math.min(va, 120_000) - 3000);
+	const third = Math.max(0, va - 120_000);
+	return roundTo(first + second * 0.35 + third * 0.25, 6);
+}
+
+function lightingDemandText(va: number): string {
 	const first = Math.min(va, 3000);
 	const second = Math.max(0, Math.min(va, 120_000) - 3000);
 	const third = Math.max(0, va - 120_000);
@@ -387,7 +398,7 @@ export function lightingDemand(va: number): { va: number; working: string } {
 	if (second > 0) w += `; next ${q(second, 'VA')} × 35 % = ${q(second * 0.35, 'VA')}`;
 	if (third > 0) w += `; over 120,000 VA: ${q(third, 'VA')} × 25 % = ${q(third * 0.25, 'VA')}`;
 	if (second > 0) w += `; total ${q(d, 'VA')}`;
-	return { va: roundTo(d, 6), working: w };
+	return w;
 }
 
 /** First `limit` VA at 100 %, the rest at 40 % (220.82(B), 220.83). */
@@ -420,17 +431,22 @@ export interface GeneralLoadOptions {
 	minimumCircuits: boolean;
 }
 
+// The lines' working texts are written when first read (see format.ts): a large job has a
+// standard-method calculation per panel. They read only values fixed when the line is built.
 function generalLines(b: LoadBucket, o: GeneralLoadOptions, rule: string): Line[] {
 	const areaVA = o.areaFt2 * 3;
+	const { areaFt2, areaSource } = o;
+	const recorded = b.recordedLightingVA;
 	const lighting =
-		b.recordedLightingVA > areaVA
+		recorded > areaVA
 			? line(
 					'general-lighting',
 					'General lighting and receptacles',
-					b.recordedLightingVA,
+					recorded,
 					'VA',
 					rule,
-					`recorded lighting ${q(b.recordedLightingVA, 'VA')} exceeds ${q(o.areaFt2, 'count')} ft² × 3 VA/ft² = ${q(areaVA, 'VA')}; the larger is used`,
+					() =>
+						`recorded lighting ${q(recorded, 'VA')} exceeds ${q(areaFt2, 'count')} ft² × 3 VA/ft² = ${q(areaVA, 'VA')}; the larger is used`,
 				)
 			: line(
 					'general-lighting',
@@ -438,15 +454,12 @@ function generalLines(b: LoadBucket, o: GeneralLoadOptions, rule: string): Line[
 					areaVA,
 					'VA',
 					rule,
-					`${num(o.areaFt2)} ft² (${o.areaSource}) × 3 VA/ft² = ${q(areaVA, 'VA')}`,
+					() => `${num(areaFt2)} ft² (${areaSource}) × 3 VA/ft² = ${q(areaVA, 'VA')}`,
 				);
-	const sa = o.minimumCircuits ? Math.max(2, b.smallApplianceCircuits) : b.smallApplianceCircuits;
-	const la = o.minimumCircuits ? Math.max(1, b.laundryCircuits) : b.laundryCircuits;
-	const saNote =
-		sa > b.smallApplianceCircuits
-			? ` (${b.smallApplianceCircuits} recorded; at least two, 210.11(C)(1))`
-			: '';
-	const laNote = la > b.laundryCircuits ? ` (${b.laundryCircuits} recorded; at least one, 210.11(C)(2))` : '';
+	const saRecorded = b.smallApplianceCircuits;
+	const laRecorded = b.laundryCircuits;
+	const sa = o.minimumCircuits ? Math.max(2, saRecorded) : saRecorded;
+	const la = o.minimumCircuits ? Math.max(1, laRecorded) : laRecorded;
 	return [
 		lighting,
 		line(
@@ -455,7 +468,9 @@ function generalLines(b: LoadBucket, o: GeneralLoadOptions, rule: string): Line[
 			sa * 1500,
 			'VA',
 			section('smallAppliance', o.edition),
-			`${sa} circuit${sa === 1 ? '' : 's'} × 1,500 VA = ${q(sa * 1500, 'VA')}${saNote}`,
+			() =>
+				`${sa} circuit${sa === 1 ? '' : 's'} × 1,500 VA = ${q(sa * 1500, 'VA')}` +
+				(sa > saRecorded ? ` (${saRecorded} recorded; at least two, 210.11(C)(1))` : ''),
 		),
 		line(
 			'laundry',
@@ -463,14 +478,25 @@ function generalLines(b: LoadBucket, o: GeneralLoadOptions, rule: string): Line[
 			la * 1500,
 			'VA',
 			section('laundry', o.edition),
-			`${la} circuit${la === 1 ? '' : 's'} × 1,500 VA = ${q(la * 1500, 'VA')}${laNote}`,
+			() =>
+				`${la} circuit${la === 1 ? '' : 's'} × 1,500 VA = ${q(la * 1500, 'VA')}` +
+				(la > laRecorded ? ` (${laRecorded} recorded; at least one, 210.11(C)(2))` : ''),
 		),
 	];
 }
 
 function subtotal(key: string, label: string, parts: readonly Line[], rule: string): Line {
-	const v = roundTo(sumOf(parts.map((p) => p.value)), 6);
-	return line(key, label, v, 'VA', rule, `${parts.map((p) => num(p.value)).join(' + ')} = ${q(v, 'VA')}`);
+	let sum = 0;
+	for (const p of parts) sum += p.value;
+	const v = roundTo(sum, 6);
+	return line(
+		key,
+		label,
+		v,
+		'VA',
+		rule,
+		() => `${parts.map((p) => num(p.value)).join(' + ')} = ${q(v, 'VA')}`,
+	);
 }
 
 /** Amperes figure (exact) and the Annex D rounded figure. */
@@ -509,35 +535,36 @@ export function standardMethod(b: LoadBucket, o: GeneralLoadOptions, supply: Sup
 		general,
 		sections(['generalLighting', 'smallAppliance', 'laundry'], ed),
 	);
-	const ld = lightingDemand(sub.value);
+	const subVA = sub.value;
 	const demand = line(
 		'general-demand',
 		'After lighting demand factors',
-		ld.va,
+		lightingDemandVA(subVA),
 		'VA',
 		section('lightingDemand', ed),
-		ld.working,
+		() => lightingDemandText(subVA),
 	);
 	const lines: Line[] = [...general, sub, demand];
 	const counted: Line[] = [demand];
 
 	const fixed = fastenedDemand(b.fixedCount, b.fixedVA, b.fixedTop3);
 	if (b.fixedCount > 0 || b.smallFixedVA > 0) {
-		const fixedDemand = fixed.va + b.smallFixedVA;
-		let w =
-			b.fixedCount >= 4
-				? `${b.fixedCount} appliances fastened in place, ${q(b.fixedVA, 'VA')} × 75 % (four or more) = ${q(b.fixedVA * 0.75, 'VA')}` +
-					(fixed.floored ? `; not less than the three largest at 100 %, ${q(fixed.va, 'VA')}` : '')
-				: `${b.fixedCount} appliance${b.fixedCount === 1 ? '' : 's'} fastened in place (fewer than four) at 100 % = ${q(b.fixedVA, 'VA')}`;
-		if (b.smallFixedVA > 0)
-			w += `; under 500 W or 1/4 hp, not counted toward four, at 100 %: ${q(b.smallFixedVA, 'VA')}`;
+		const { fixedCount, fixedVA, smallFixedVA } = b;
+		const fixedDemand = fixed.va + smallFixedVA;
 		const l = line(
 			'fixed-appliances',
 			'Appliances fastened in place',
 			roundTo(fixedDemand, 6),
 			'VA',
 			section('fixedAppliances', ed),
-			w,
+			() =>
+				(fixedCount >= 4
+					? `${fixedCount} appliances fastened in place, ${q(fixedVA, 'VA')} × 75 % (four or more) = ${q(fixedVA * 0.75, 'VA')}` +
+						(fixed.floored ? `; not less than the three largest at 100 %, ${q(fixed.va, 'VA')}` : '')
+					: `${fixedCount} appliance${fixedCount === 1 ? '' : 's'} fastened in place (fewer than four) at 100 % = ${q(fixedVA, 'VA')}`) +
+				(smallFixedVA > 0
+					? `; under 500 W or 1/4 hp, not counted toward four, at 100 %: ${q(smallFixedVA, 'VA')}`
+					: ''),
 		);
 		lines.push(l);
 		counted.push(l);
@@ -582,27 +609,29 @@ export function standardMethod(b: LoadBucket, o: GeneralLoadOptions, supply: Sup
 			larger,
 			'VA',
 			sections(['noncoincident', 'heating'], ed),
-			`heating ${q(heat, 'VA')}, cooling ${q(cool, 'VA')}: the larger, ${q(larger, 'VA')}, at 100 %`,
+			() => `heating ${q(heat, 'VA')}, cooling ${q(cool, 'VA')}: the larger, ${q(larger, 'VA')}, at 100 %`,
 		);
 		lines.push(l);
 		counted.push(l);
 	}
 	if (b.largestMotorVA > 0) {
-		const add = roundTo(b.largestMotorVA * 0.25, 6);
+		const { largestMotorVA, largestMotorName } = b;
+		const add = roundTo(largestMotorVA * 0.25, 6);
 		const l = line(
 			'largest-motor',
 			'25 % of the largest motor',
 			add,
 			'VA',
 			section('motors', ed),
-			`${b.largestMotorName}: ${q(b.largestMotorVA, 'VA')} × 25 % = ${q(add, 'VA')}`,
+			() => `${largestMotorName}: ${q(largestMotorVA, 'VA')} × 25 % = ${q(add, 'VA')}`,
 		);
 		lines.push(l);
 		counted.push(l);
 	}
 	if (b.evVA.length > 0) {
 		const min = ed === '2017' ? 0 : 7200;
-		const each = b.evVA.map((e) => Math.max(min, e));
+		const evVA = b.evVA.slice();
+		const each = evVA.map((e) => Math.max(min, e));
 		const v = sumOf(each);
 		const l = line(
 			'evse',
@@ -610,9 +639,10 @@ export function standardMethod(b: LoadBucket, o: GeneralLoadOptions, supply: Sup
 			v,
 			'VA',
 			section('evse', ed),
-			b.evVA
-				.map((e) => (e >= min ? `${q(e, 'VA')} nameplate` : `${q(e, 'VA')} nameplate, 7,200 W minimum`))
-				.join(' + ') + ` → ${q(v, 'VA')} at 100 %`,
+			() =>
+				evVA
+					.map((e) => (e >= min ? `${q(e, 'VA')} nameplate` : `${q(e, 'VA')} nameplate, 7,200 W minimum`))
+					.join(' + ') + ` → ${q(v, 'VA')} at 100 %`,
 		);
 		lines.push(l);
 		counted.push(l);
@@ -621,14 +651,15 @@ export function standardMethod(b: LoadBucket, o: GeneralLoadOptions, supply: Sup
 	lines.push(total);
 
 	// Neutral, 220.61: line-to-neutral loads only; ranges and dryers at 70 %.
+	const demandVA = demand.value;
 	const nl: Line[] = [
 		line(
 			'neutral-general',
 			'General lighting, small-appliance and laundry (after demand)',
-			demand.value,
+			demandVA,
 			'VA',
 			section('neutral', ed),
-			`${q(demand.value, 'VA')} (all 120 V)`,
+			() => `${q(demandVA, 'VA')} (all 120 V)`,
 		),
 	];
 	const fixed120 = fastenedDemand(b.fixedCount, b.fixed120VA, b.fixed120Top3).va + b.smallFixed120VA;
@@ -640,7 +671,7 @@ export function standardMethod(b: LoadBucket, o: GeneralLoadOptions, supply: Sup
 				roundTo(fixed120, 6),
 				'VA',
 				section('neutral', ed),
-				`120 V part of the appliance line: ${q(fixed120, 'VA')}`,
+				() => `120 V part of the appliance line: ${q(fixed120, 'VA')}`,
 			),
 		);
 	}
@@ -680,8 +711,11 @@ export function standardMethod(b: LoadBucket, o: GeneralLoadOptions, supply: Sup
 			),
 		);
 	}
-	const nSum = roundTo(sumOf(nl.map((l) => l.value)), 6);
+	let nSum = 0;
+	for (const l of nl) nSum += l.value;
+	nSum = roundTo(nSum, 6);
 	const limitVA = 200 * supply.divisor;
+	const sum = () => `${nl.map((l) => num(l.value)).join(' + ')} = ${q(nSum, 'VA')}`;
 	let neutralTotal: Line;
 	if (nSum > limitVA) {
 		const reduced = roundTo(limitVA + (nSum - limitVA) * 0.7, 6);
@@ -691,17 +725,11 @@ export function standardMethod(b: LoadBucket, o: GeneralLoadOptions, supply: Sup
 			reduced,
 			'VA',
 			section('neutral', ed),
-			`${nl.map((l) => num(l.value)).join(' + ')} = ${q(nSum, 'VA')}; above 200 A (${q(limitVA, 'VA')}) at 70 %: ${q(limitVA, 'VA')} + ${q(nSum - limitVA, 'VA')} × 70 % = ${q(reduced, 'VA')}`,
+			() =>
+				`${sum()}; above 200 A (${q(limitVA, 'VA')}) at 70 %: ${q(limitVA, 'VA')} + ${q(nSum - limitVA, 'VA')} × 70 % = ${q(reduced, 'VA')}`,
 		);
 	} else {
-		neutralTotal = line(
-			'neutral-total',
-			'Neutral load',
-			nSum,
-			'VA',
-			section('neutral', ed),
-			`${nl.map((l) => num(l.value)).join(' + ')} = ${q(nSum, 'VA')}`,
-		);
+		neutralTotal = line('neutral-total', 'Neutral load', nSum, 'VA', section('neutral', ed), sum);
 	}
 	return { lines, total, neutralLines: nl, neutralTotal };
 }

@@ -143,16 +143,46 @@ export function figOf<T>(value: number, unit: Unit, rule: string, text: TextOf<T
 	return new LazyFigure(value, unit, rule, text as TextOf<unknown>, arg);
 }
 
-/** Builds a worksheet line. */
+class LazyLine extends LazyText implements Line {
+	key: string;
+	label: string;
+	value: number;
+	unit: Unit;
+	rule: string;
+	constructor(key: string, label: string, value: number, unit: Unit, rule: string, text: TextOf<unknown>) {
+		super(text, undefined);
+		this.key = key;
+		this.label = label;
+		this.value = value;
+		this.unit = unit;
+		this.rule = rule;
+	}
+	get working(): string {
+		return this.text();
+	}
+	toJSON(): Line {
+		return {
+			key: this.key,
+			label: this.label,
+			value: this.value,
+			unit: this.unit,
+			rule: this.rule,
+			working: this.working,
+		};
+	}
+}
+
+/** Builds a worksheet line; `working` may be a function returning the text, called when the text is first read. */
 export function line(
 	key: string,
 	label: string,
 	value: number,
 	unit: Unit,
 	rule: string,
-	working: string,
+	working: Text,
 ): Line {
-	return { key, label, value, unit, rule, working };
+	if (typeof working === 'string') return { key, label, value, unit, rule, working };
+	return new LazyLine(key, label, value, unit, rule, working);
 }
 
 /** Builds a finding; `message` may be a function returning the text, called when the text is first read. */
