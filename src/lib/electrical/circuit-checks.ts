@@ -271,28 +271,119 @@ const NONE: readonly never[] = [];
 /** Numbers a circuit's texts keep, in one Float64Array for the whole job (no boxed number per field). */
 export const TEXT_NUMBERS = 29;
 
+/** What the circuits of one job share, kept once rather than on each circuit. */
+export interface CircuitShared {
+	ed: Edition;
+	/** The job's loads grouped by circuit: a circuit's are from `loadsFrom`, `count` of them. */
+	loads: readonly Load[];
+	/** The job's rooms by id, for the AFCI and GFCI texts. */
+	rooms: ReadonlyMap<string, Room> | null;
+	/** The circuits' numbers, TEXT_NUMBERS of them each. */
+	n: Float64Array;
+	/** Message of the afci-required 'ok' finding. */
+	afciOkText: TextOf<CircuitTexts> | null;
+}
+
+/** Shared values for a circuit checked on its own. */
+export function circuitShared(ed: Edition): CircuitShared {
+	return { ed, loads: NONE, rooms: null, n: new Float64Array(TEXT_NUMBERS), afciOkText: null };
+}
+
+/** What only some circuits have: kept aside so that the common circuit stays small. */
+interface Rare {
+	name: string | null;
+	breakerWorking: Figure | null;
+	feederPanelName: string;
+	cookingWorking: string;
+	roomIds: readonly string[] | null;
+	gfciRooms: readonly Room[];
+	feedsPanelId: string | null;
+	other: Set<number> | null;
+	feederLegs: number[] | null;
+	extra: Finding[] | null;
+	target: Target | null;
+}
+
 /**
  * What a circuit's texts read, written when first shown: values fixed as the checks run. One object
- * per circuit instead of a closure per text; its numbers sit at `o` in `n`.
+ * per circuit instead of a closure per text; its numbers sit at `o` in `shared.n`. A large job has
+ * one per circuit, so it keeps few fields: what all circuits of the job share is in `shared`, what
+ * few circuits have in `rare`.
  */
 export class CircuitTexts {
-	name: string | null = null;
-	/** The circuit's loads (from `loadsFrom`, `count` of them), for the terms of the connected-load sum. */
-	loads: readonly Load[] = NONE;
-	breakerWorking: Figure | null = null;
-	feederPanelName = '';
-	cookingWorking = '';
-	ed: Edition = '2023';
-	/** Rooms the circuit and its loads serve, and the job's rooms, for the AFCI and GFCI texts. */
-	roomIds: readonly string[] = NONE;
-	rooms: ReadonlyMap<string, Room> | null = null;
-	gfciRooms: readonly Room[] = NONE;
-	afciRule = '';
+	protected rare: Rare | null = null;
 	constructor(
 		readonly circuit: Circuit,
-		readonly n: Float64Array = new Float64Array(TEXT_NUMBERS),
+		readonly shared: CircuitShared,
 		readonly o = 0,
 	) {}
+	protected get r(): Rare {
+		return (this.rare ??= {
+			name: null,
+			breakerWorking: null,
+			feederPanelName: '',
+			cookingWorking: '',
+			roomIds: null,
+			gfciRooms: NONE,
+			feedsPanelId: null,
+			other: null,
+			feederLegs: null,
+			extra: null,
+			target: null,
+		});
+	}
+	get n(): Float64Array {
+		return this.shared.n;
+	}
+	get ed(): Edition {
+		return this.shared.ed;
+	}
+	get loads(): readonly Load[] {
+		return this.shared.loads;
+	}
+	get rooms(): ReadonlyMap<string, Room> | null {
+		return this.shared.rooms;
+	}
+	get afciRule(): string {
+		return section('afci', this.shared.ed);
+	}
+	get name(): string | null {
+		return this.rare?.name ?? null;
+	}
+	set name(x: string | null) {
+		this.r.name = x;
+	}
+	get breakerWorking(): Figure | null {
+		return this.rare?.breakerWorking ?? null;
+	}
+	set breakerWorking(x: Figure | null) {
+		this.r.breakerWorking = x;
+	}
+	get feederPanelName(): string {
+		return this.rare?.feederPanelName ?? '';
+	}
+	set feederPanelName(x: string) {
+		this.r.feederPanelName = x;
+	}
+	get cookingWorking(): string {
+		return this.rare?.cookingWorking ?? '';
+	}
+	set cookingWorking(x: string) {
+		this.r.cookingWorking = x;
+	}
+	/** Rooms the circuit and its loads serve (the circuit's own list unless its loads add rooms). */
+	get roomIds(): readonly string[] {
+		return this.rare?.roomIds ?? this.circuit.roomIds;
+	}
+	set roomIds(x: readonly string[]) {
+		if (x !== this.circuit.roomIds || this.rare) this.r.roomIds = x;
+	}
+	get gfciRooms(): readonly Room[] {
+		return this.rare?.gfciRooms ?? NONE;
+	}
+	set gfciRooms(x: readonly Room[]) {
+		this.r.gfciRooms = x;
+	}
 	// Read from the circuit rather than kept: a large job has one of these per circuit.
 	get id(): string {
 		return this.circuit.id;
@@ -605,6 +696,7 @@ const FASTENED_OVER = 64;
 const CORD_OVER = 128;
 const TOTAL = 256;
 const TOTAL_NOTE = 512;
+const AFCI_OK = 1024;
 
 const SEVERITY_INDEX: Record<Severity, number> = { ok: 0, note: 1, warning: 2, violation: 3 };
 
@@ -632,21 +724,24 @@ const NO_LEGS: Leg[] = [];
 export class CircuitChecks extends CircuitTexts implements CircuitResult {
 	positions: number[] = NO_POSITIONS;
 	legs: Leg[] = NO_LEGS;
-	feedsPanelId: string | null = null;
 	voltage!: Figure;
 	breakerA!: Figure;
 	conductorAmpacityA: Figure | null = null;
 	smallConductorLimitA: Figure | null = null;
 	#flags = 0;
-	#other: Set<number> | null = null;
-	#feederLegs: number[] | null = null;
-	#target: Target | null = null;
-	#extra: Finding[] | null = null;
-	#afciOkText: TextOf<CircuitTexts> | null = null;
 	/** Figures and findings made so far. */
 	#made: Made | null = null;
-	constructor(c: Circuit, n?: Float64Array, o?: number) {
-		super(c, n, o);
+	get feedsPanelId(): string | null {
+		return this.rare?.feedsPanelId ?? null;
+	}
+	get #other(): Set<number> | null {
+		return this.rare?.other ?? null;
+	}
+	get #feederLegs(): number[] | null {
+		return this.rare?.feederLegs ?? null;
+	}
+	get #extra(): Finding[] | null {
+		return this.rare?.extra ?? null;
 	}
 	/** Keeps what checkCircuit found. */
 	set(
@@ -663,14 +758,17 @@ export class CircuitChecks extends CircuitTexts implements CircuitResult {
 	): void {
 		this.positions = positions;
 		this.legs = legs;
-		this.feedsPanelId = feedsPanelId;
 		this.voltage = voltage;
 		this.breakerA = breakerA;
 		this.conductorAmpacityA = conductorAmpacityA;
 		this.smallConductorLimitA = smallConductorLimitA;
 		this.#flags = flags;
-		this.#other = other;
-		this.#feederLegs = feederLegs;
+		if (feedsPanelId !== null || feederLegs !== null || other !== null) {
+			const r = this.r;
+			r.feedsPanelId = feedsPanelId;
+			r.feederLegs = feederLegs;
+			r.other = other;
+		}
 	}
 	get #m(): Made {
 		return (this.#made ??= {
@@ -695,7 +793,8 @@ export class CircuitChecks extends CircuitTexts implements CircuitResult {
 	}
 	/** The target of the circuit's findings. */
 	get target(): Target {
-		return (this.#target ??= { kind: 'circuit', id: this.circuit.id });
+		const r = this.r;
+		return (r.target ??= { kind: 'circuit', id: this.circuit.id });
 	}
 	/** connectedVA.value, without making the figure. */
 	get connectedValue(): number {
@@ -804,13 +903,15 @@ export class CircuitChecks extends CircuitTexts implements CircuitResult {
 		const made = this.#made?.findings;
 		if (made) for (const f of list) made.push(f);
 		else if (this.#extra) for (const f of list) this.#extra.push(f);
-		else this.#extra = list.slice();
+		else this.r.extra = list.slice();
 	}
-	/** Adds the afci-required 'ok' finding (rule `texts.afciRule`) after the others, made when read. */
-	addAfciOk(text: TextOf<CircuitTexts>): void {
+	/** Adds the afci-required 'ok' finding (message `shared.afciOkText`, rule `afciRule`) after the others, made when read. */
+	addAfciOk(): void {
 		const made = this.#made?.findings;
+		const text = this.shared.afciOkText;
+		if (!text) return;
 		if (made) made.push(findingOf('ok', 'afci-required', text, this, this.afciRule, this.target));
-		else this.#afciOkText = text;
+		else this.#flags |= AFCI_OK;
 	}
 	/** Adds the voltage drop of the feeders between this circuit's panel and the service. */
 	addUpstreamDrop(up: number): void {
@@ -946,7 +1047,8 @@ export class CircuitChecks extends CircuitTexts implements CircuitResult {
 					counts[i] = (counts[i] as number) + 1;
 				}
 		}
-		if (this.#afciOkText) this.#add(out, counts, 'ok', 'afci-required', this.#afciOkText, this.afciRule);
+		const afciOk = this.shared.afciOkText;
+		if ((f & AFCI_OK) !== 0 && afciOk) this.#add(out, counts, 'ok', 'afci-required', afciOk, this.afciRule);
 		if ((f & TOTAL_NOTE) !== 0)
 			this.#add(out, counts, 'note', 'voltage-drop-total', totalDropNoteText, R.voltageDrop);
 	}
@@ -987,7 +1089,7 @@ export function checkCircuit(
 	feeder: FeederLoad | null,
 	legs: Leg[],
 	positions: number[],
-	t: CircuitChecks = new CircuitChecks(c),
+	t: CircuitChecks = new CircuitChecks(c, circuitShared(ctx.edition)),
 ): CircuitChecks {
 	const ed = ctx.edition;
 	const R = rulesFor(ed);
@@ -996,7 +1098,6 @@ export function checkCircuit(
 	const system = panel.voltageSystem;
 	const v = circuitVoltage(poles, system);
 	const divisor = poles === 3 ? v * Math.sqrt(3) : v;
-	t.ed = ed;
 	t.v = v;
 	t.divisor = divisor;
 	let flags = 0;

@@ -1,6 +1,12 @@
 /** computeJob: every check of a job document in one pass over its records. */
 import { CircuitChecks, TEXT_NUMBERS, checkCircuit, circuitName, emptyStats } from './circuit-checks';
-import type { CircuitContext, CircuitLoadStats, CircuitResult, FeederLoad } from './circuit-checks';
+import type {
+	CircuitContext,
+	CircuitLoadStats,
+	CircuitResult,
+	CircuitShared,
+	FeederLoad,
+} from './circuit-checks';
 import {
 	addLoad,
 	ampsFigures,
@@ -132,7 +138,7 @@ function resetStats(s: CircuitLoadStats): void {
 interface CircuitPass {
 	ed: Edition;
 	ctx: CircuitContext;
-	numbers: Float64Array;
+	shared: CircuitShared;
 	resultAt: (CircuitChecks | undefined)[];
 	grouped: Load[];
 	loadStart: Int32Array;
@@ -159,12 +165,11 @@ function runCircuit(
 	c: Circuit,
 	index: number,
 ): void {
-	const { ed, ctx, numbers, resultAt, grouped, loadStart, stats, facts, panelFedBy, work, roomsById } = s;
+	const { ed, ctx, shared, resultAt, grouped, loadStart, stats, facts, panelFedBy, work, roomsById } = s;
 	const p = w.panel;
-	const t = new CircuitChecks(c, numbers, index * TEXT_NUMBERS);
+	const t = new CircuitChecks(c, shared, index * TEXT_NUMBERS);
 	const from = loadStart[index] as number;
 	const to = loadStart[index + 1] as number;
-	t.loads = grouped;
 	t.loadsFrom = from;
 	const v = circuitVoltage(c.poles, p.voltageSystem);
 	resetStats(stats);
@@ -251,7 +256,7 @@ function runCircuit(
 		r.addFindings(extra);
 		extra.length = 0;
 	}
-	if (afciOk) r.addAfciOk(afciOkText);
+	if (afciOk) r.addAfciOk();
 	resultAt[index] = r;
 	if (sub) s.circuitResults.set(c.id, r);
 	w.connectedVA += r.connectedValue;
@@ -443,7 +448,13 @@ export function computeJob(doc: JobDocument): JobResult {
 	const facts: RequiredCircuitFacts = { smallAppliance: [], laundry: [], receptacle20ARooms: new Set() };
 	// Results by index in doc.circuits; feeders also by id, for their subpanels.
 	const resultAt: (CircuitChecks | undefined)[] = new Array(doc.circuits.length);
-	const numbers = new Float64Array(doc.circuits.length * TEXT_NUMBERS);
+	const shared: CircuitShared = {
+		ed,
+		loads: grouped,
+		rooms: roomsById,
+		n: new Float64Array(doc.circuits.length * TEXT_NUMBERS),
+		afciOkText,
+	};
 	// Positions and legs by first position and poles, shared by the circuits that take the same ones.
 	const placesBySystem = new Map<VoltageSystem, Map<number, { positions: number[]; legs: Leg[] }>>();
 	const stats: CircuitLoadStats = emptyStats();
@@ -453,7 +464,7 @@ export function computeJob(doc: JobDocument): JobResult {
 	const pass: CircuitPass = {
 		ed,
 		ctx,
-		numbers,
+		shared,
 		resultAt,
 		grouped,
 		loadStart,

@@ -176,8 +176,6 @@ export function protectionFindings(
 		if (any) {
 			const rule = section('afci', edition);
 			t.roomIds = roomIds;
-			t.rooms = roomsById;
-			t.afciRule = rule;
 			const x = t;
 			if (c.breakerType === 'afci' || c.breakerType === 'dual-function') {
 				return true;
