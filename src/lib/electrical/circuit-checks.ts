@@ -96,14 +96,33 @@ export interface CircuitContext {
 	terminalC: TemperatureC;
 	/** Figures that depend only on a few discrete inputs, shared by the circuits of one job. */
 	figures?: Map<string, Map<number, Figure>>;
+	/** The last figure found for each kind (see Kind), as most circuits repeat the one before. */
+	last?: Last[];
 }
+
+/** The last shared figure found for one kind of figure. */
+interface Last {
+	key: string;
+	n: number;
+	figure: Figure | undefined;
+}
+
+/** Kinds of shared figure, each with its own Last. */
+const VOLTAGE = 0;
+const BREAKER = 1;
+const AMPACITY = 2;
+const LIMIT = 3;
 
 /** A figure from the job's shared ones, or undefined before `shareFigure` keeps it (as `kept` does for texts). */
-function sharedFigure(ctx: CircuitContext, key: string, n: number): Figure | undefined {
-	return ctx.figures?.get(key)?.get(n);
+function sharedFigure(ctx: CircuitContext, kind: number, key: string, n: number): Figure | undefined {
+	const last = ctx.last?.[kind];
+	if (last && last.figure !== undefined && last.n === n && last.key === key) return last.figure;
+	const f = ctx.figures?.get(key)?.get(n);
+	if (f !== undefined) remember(ctx, kind, key, n, f);
+	return f;
 }
 
-function shareFigure(ctx: CircuitContext, key: string, n: number, f: Figure): Figure {
+function shareFigure(ctx: CircuitContext, kind: number, key: string, n: number, f: Figure): Figure {
 	const figures = (ctx.figures ??= new Map());
 	let byNumber = figures.get(key);
 	if (byNumber === undefined) {
@@ -111,7 +130,20 @@ function shareFigure(ctx: CircuitContext, key: string, n: number, f: Figure): Fi
 		figures.set(key, byNumber);
 	}
 	byNumber.set(n, f);
+	remember(ctx, kind, key, n, f);
 	return f;
+}
+
+function remember(ctx: CircuitContext, kind: number, key: string, n: number, f: Figure): void {
+	const all = (ctx.last ??= [VOLTAGE, BREAKER, AMPACITY, LIMIT].map(() => ({
+		key: '',
+		n: 0,
+		figure: undefined,
+	})));
+	const last = all[kind] as Last;
+	last.key = key;
+	last.n = n;
+	last.figure = f;
 }
 
 export interface FeederLoad {
@@ -148,12 +180,15 @@ function rulesOf(ed: Edition) {
 	};
 }
 const RULES = new Map<Edition, ReturnType<typeof rulesOf>>();
+let lastRules: { ed: Edition; rules: ReturnType<typeof rulesOf> } | null = null;
 function rulesFor(ed: Edition): ReturnType<typeof rulesOf> {
+	if (lastRules?.ed === ed) return lastRules.rules;
 	let r = RULES.get(ed);
 	if (!r) {
 		r = rulesOf(ed);
 		RULES.set(ed, r);
 	}
+	lastRules = { ed, rules: r };
 	return r;
 }
 
@@ -173,7 +208,6 @@ function keep(key: string, n: number, text: string): string {
 	byNumber.set(n, text);
 	return text;
 }
-const EDITION_NUMBER: Record<Edition, number> = { '2017': 0, '2020': 1, '2023': 2 };
 
 /** A human name for a circuit in messages. */
 export function circuitName(c: Circuit): string {
@@ -592,11 +626,18 @@ export class CircuitTexts {
 /** The conductor in words, e.g. '12 AWG copper'. */
 function wireText(conductor: Circuit['conductor']): string {
 	const { size, material } = conductor;
+	// Most circuits repeat the conductor of the one before.
+	const last = lastWire;
+	if (last.size === size && last.material === material) return last.text;
 	const key = material === 'cu' ? 3 : 4;
-	return (
-		kept(size, key) ?? keep(size, key, `${sizeLabel(size)} ${material === 'cu' ? 'copper' : 'aluminum'}`)
-	);
+	const text =
+		kept(size, key) ?? keep(size, key, `${sizeLabel(size)} ${material === 'cu' ? 'copper' : 'aluminum'}`);
+	last.size = size;
+	last.material = material;
+	last.text = text;
+	return text;
 }
+const lastWire = { size: '', material: '', text: '' };
 
 /** The circuit's name in messages (circuitName), made when first needed. */
 export function nameOf(t: CircuitTexts): string {
@@ -1102,9 +1143,10 @@ export function checkCircuit(
 	t.divisor = divisor;
 	let flags = 0;
 	const voltage =
-		sharedFigure(ctx, system, 10 + poles) ??
+		sharedFigure(ctx, VOLTAGE, system, 10 + poles) ??
 		shareFigure(
 			ctx,
+			VOLTAGE,
 			system,
 			10 + poles,
 			fig(v, 'V', 'nominal system voltage', `${poles}-pole breaker in a ${system} panelboard → ${v} V`),
@@ -1155,9 +1197,10 @@ export function checkCircuit(
 
 	const breakerType = c.breakerType;
 	const breakerA =
-		sharedFigure(ctx, breakerType, ratingA * 10 + poles) ??
+		sharedFigure(ctx, BREAKER, breakerType, ratingA * 10 + poles) ??
 		shareFigure(
 			ctx,
+			BREAKER,
 			breakerType,
 			ratingA * 10 + poles,
 			fig(
@@ -1175,13 +1218,14 @@ export function checkCircuit(
 	const amp = tableAmpacity(size, material, column, ed);
 	const wire = wireText(c.conductor);
 	t.column = column;
-	const ampacityKey = insulationC * 10_000 + terminalC * 10 + EDITION_NUMBER[ed];
+	const ampacityKey = insulationC * 10_000 + terminalC * 10 + (ed === '2017' ? 0 : ed === '2020' ? 1 : 2);
 	const conductorAmpacityA =
 		amp === null
 			? null
-			: (sharedFigure(ctx, wire, ampacityKey) ??
+			: (sharedFigure(ctx, AMPACITY, wire, ampacityKey) ??
 				shareFigure(
 					ctx,
+					AMPACITY,
 					wire,
 					ampacityKey,
 					fig(
@@ -1195,9 +1239,10 @@ export function checkCircuit(
 	const smallLimit =
 		limit === null
 			? null
-			: (sharedFigure(ctx, wire, 5) ??
+			: (sharedFigure(ctx, LIMIT, wire, 5) ??
 				shareFigure(
 					ctx,
+					LIMIT,
 					wire,
 					5,
 					fig(limit, 'A', R.smallConductors, `${wire}: overcurrent protection not over ${q(limit, 'A')}`),

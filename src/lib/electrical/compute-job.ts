@@ -203,7 +203,7 @@ function runCircuit(
 		const added = (l.status ?? (c.status === 'new' ? 'new' : 'existing')) === 'new';
 		const bucket = added ? w.own.added : w.own.existing;
 		const first = l.kind === 'small-appliance' ? firstSA : l.kind === 'laundry' ? firstLaundry : false;
-		addLoad(bucket, l, ed, first);
+		addLoad(bucket, l, ed, first, each);
 		if (l.kind === 'small-appliance') firstSA = false;
 		if (l.kind === 'laundry') firstLaundry = false;
 	}

@@ -192,10 +192,16 @@ function addRooms(rooms: RoomSet, ids: readonly string[]): void {
 
 /**
  * Adds one load to a bucket. `firstOfKindOnCircuit` says whether this is the circuit's first
- * small-appliance (or laundry) load, so each such circuit is counted once.
+ * small-appliance (or laundry) load, so each such circuit is counted once; `each` is the VA of one
+ * item (unitVA), when the caller has it.
  */
-export function addLoad(b: LoadBucket, load: Load, edition: Edition, firstOfKindOnCircuit: boolean): void {
-	const each = unitVA(load);
+export function addLoad(
+	b: LoadBucket,
+	load: Load,
+	edition: Edition,
+	firstOfKindOnCircuit: boolean,
+	each = unitVA(load),
+): void {
 	const n = load.quantity;
 	const total = each * n;
 	if (isMotor(load) && each > b.largestMotorVA) {
