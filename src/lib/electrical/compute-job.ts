@@ -144,8 +144,12 @@ interface CircuitPass {
 	loadStart: Int32Array;
 	/** 1 at the index of each circuit that feeds a panel. */
 	feedsPanel: Uint8Array;
-	/** The room last added to facts.receptacle20ARooms. */
-	lastRoom: string | null;
+	/** Index in doc.rooms by room id, and the id last looked up with its index (-1 for no room). */
+	roomIndex: RoomIndex;
+	lastRoomId: string | null;
+	lastRoomAt: number;
+	/** 1 at the index in doc.rooms of each room a circuit or load names. */
+	served: Uint8Array;
 	stats: CircuitLoadStats;
 	facts: RequiredCircuitFacts;
 	panelFedBy: ReadonlyMap<string, string>;
@@ -154,6 +158,23 @@ interface CircuitPass {
 	circuitResults: Map<string, CircuitChecks>;
 	/** Findings protectionFindings makes for the current circuit. */
 	extra: Finding[];
+}
+
+/** Index in doc.rooms of room `id`, -1 for no room; loads mostly repeat the room before. */
+function roomAt(s: CircuitPass, id: string): number {
+	if (id === s.lastRoomId) return s.lastRoomAt;
+	const i = s.roomIndex.byId.get(id) ?? -1;
+	s.lastRoomId = id;
+	s.lastRoomAt = i;
+	return i;
+}
+
+/** Marks the rooms of `ids` served. */
+function markServed(s: CircuitPass, ids: readonly string[]): void {
+	for (let j = 0; j < ids.length; j++) {
+		const i = roomAt(s, ids[j] as string);
+		if (i >= 0) s.served[i] = 1;
+	}
 }
 
 /** Checks circuit `c` (at `index` in doc.circuits) of panel `w` and adds its loads to the panel's. */
@@ -176,6 +197,8 @@ function runCircuit(
 	let firstSA = true;
 	let firstLaundry = true;
 	let hasReceptacle = false;
+	const served = s.served;
+	markServed(s, c.roomIds);
 	for (let k = from; k < to; k++) {
 		const l = grouped[k] as Load;
 		const each = unitVA(l);
@@ -202,7 +225,17 @@ function runCircuit(
 		else stats.onlyCooking = false;
 		const added = (l.status ?? (c.status === 'new' ? 'new' : 'existing')) === 'new';
 		const bucket = added ? w.own.added : w.own.existing;
-		const first = l.kind === 'small-appliance' ? firstSA : l.kind === 'laundry' ? firstLaundry : false;
+		// Rooms served by general lighting and receptacle loads go with the load into its bucket (addLoad).
+		const kind = l.kind;
+		const roomsCount = kind === 'lighting' || kind === 'receptacles' || kind === 'small-appliance';
+		const ids = l.roomIds;
+		for (let j = 0; j < ids.length; j++) {
+			const i = roomAt(s, ids[j] as string);
+			if (i < 0) continue;
+			served[i] = 1;
+			if (roomsCount) bucket.rooms.addIndex(i);
+		}
+		const first = kind === 'small-appliance' ? firstSA : kind === 'laundry' ? firstLaundry : false;
 		addLoad(bucket, l, ed, first, each);
 		if (l.kind === 'small-appliance') firstSA = false;
 		if (l.kind === 'laundry') firstLaundry = false;
@@ -210,24 +243,19 @@ function runCircuit(
 	if (!firstSA) facts.smallAppliance.push(t);
 	if (!firstLaundry) facts.laundry.push(t);
 	if (hasReceptacle && c.poles === 1 && c.ratingA === 20) {
-		// Most circuits repeat the room just added: skipping it leaves the set and its order unchanged.
 		const rooms = facts.receptacle20ARooms;
-		let last = s.lastRoom;
-		for (const r of c.roomIds)
-			if (r !== last) {
-				rooms.add(r);
-				last = r;
-			}
+		for (const r of c.roomIds) {
+			const i = roomAt(s, r);
+			if (i >= 0) rooms[i] = 1;
+		}
 		for (let k = from; k < to; k++) {
 			const l = grouped[k] as Load;
 			if (isReceptacleLoad(l))
-				for (const r of l.roomIds)
-					if (r !== last) {
-						rooms.add(r);
-						last = r;
-					}
+				for (const r of l.roomIds) {
+					const i = roomAt(s, r);
+					if (i >= 0) rooms[i] = 1;
+				}
 		}
-		s.lastRoom = last;
 	}
 
 	const subId = s.feedsPanel[index] === 1 ? panelFedBy.get(c.id) : undefined;
@@ -445,7 +473,11 @@ export function computeJob(doc: JobDocument): JobResult {
 	}
 	const postOrder = [...preOrder].reverse();
 
-	const facts: RequiredCircuitFacts = { smallAppliance: [], laundry: [], receptacle20ARooms: new Set() };
+	const facts: RequiredCircuitFacts = {
+		smallAppliance: [],
+		laundry: [],
+		receptacle20ARooms: new Uint8Array(doc.rooms.length),
+	};
 	// Results by index in doc.circuits; feeders also by id, for their subpanels.
 	const resultAt: (CircuitChecks | undefined)[] = new Array(doc.circuits.length);
 	const shared: CircuitShared = {
@@ -469,7 +501,10 @@ export function computeJob(doc: JobDocument): JobResult {
 		grouped,
 		loadStart,
 		feedsPanel,
-		lastRoom: null,
+		roomIndex,
+		lastRoomId: null,
+		lastRoomAt: -1,
+		served: new Uint8Array(doc.rooms.length),
 		stats,
 		facts,
 		panelFedBy,
@@ -569,24 +604,19 @@ export function computeJob(doc: JobDocument): JobResult {
 	}
 
 	const protection = requiredCircuitFindings(facts, doc.rooms, ed, existingDwelling, jobId);
-	const served = new Set<string>();
-	let lastServed: string | undefined;
-	for (const c of doc.circuits)
-		if (c.status !== 'removed')
-			for (const r of c.roomIds)
-				if (r !== lastServed) {
-					served.add(r);
-					lastServed = r;
-				}
-	let lastRoom: string | undefined;
-	for (const l of doc.loads)
-		for (const r of l.roomIds)
-			if (r !== lastRoom) {
-				served.add(r);
-				lastRoom = r;
-			}
-	for (const room of doc.rooms) {
-		if (!served.has(room.id)) {
+	// Rooms of the circuits and loads the pass did not check: removed circuits' loads, circuits in no panel, loads of no circuit.
+	for (let i = 0; i < doc.circuits.length; i++) {
+		if (resultAt[i] !== undefined) continue;
+		const c = doc.circuits[i] as Circuit;
+		if (c.status !== 'removed') markServed(pass, c.roomIds);
+		for (let k = loadStart[i] as number; k < (loadStart[i + 1] as number); k++)
+			markServed(pass, (grouped[k] as Load).roomIds);
+	}
+	for (let k = 0; k < doc.loads.length; k++)
+		if (loadCircuit[k] === -1) markServed(pass, (doc.loads[k] as Load).roomIds);
+	for (let i = 0; i < doc.rooms.length; i++) {
+		const room = doc.rooms[i] as Room;
+		if (pass.served[i] === 0) {
 			protection.push(
 				finding(
 					'note',

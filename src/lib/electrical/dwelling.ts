@@ -35,11 +35,6 @@ export class RoomSet {
 		bits[w] = (bits[w] as number) | bit;
 		this.order.push(i);
 	}
-	/** Adds a room by id; ids of no room of the job are left out. */
-	add(id: string): void {
-		const i = this.index.byId.get(id);
-		if (i !== undefined) this.addIndex(i);
-	}
 	/** Adds every room of `from`. */
 	addAll(from: RoomSet): void {
 		for (const i of from.order) this.addIndex(i);
@@ -178,20 +173,9 @@ export function cloneBucket(b: LoadBucket, rooms = true): LoadBucket {
 	return mergeBucket(emptyBucket(b.rooms.index), b, rooms);
 }
 
-// The set and room last added: most loads repeat the room of the one before, and adding it again changes nothing.
-let lastRooms: RoomSet | null = null;
-let lastRoom: string | null = null;
-function addRooms(rooms: RoomSet, ids: readonly string[]): void {
-	for (const r of ids) {
-		if (r === lastRoom && rooms === lastRooms) continue;
-		rooms.add(r);
-		lastRooms = rooms;
-		lastRoom = r;
-	}
-}
-
 /**
- * Adds one load to a bucket. `firstOfKindOnCircuit` says whether this is the circuit's first
+ * Adds one load to a bucket, all but its rooms: the caller adds to `b.rooms` the rooms of lighting,
+ * receptacle and small-appliance loads. `firstOfKindOnCircuit` says whether this is the circuit's first
  * small-appliance (or laundry) load, so each such circuit is counted once; `each` is the VA of one
  * item (unitVA), when the caller has it.
  */
@@ -211,15 +195,12 @@ export function addLoad(
 	switch (load.kind) {
 		case 'lighting':
 			b.recordedLightingVA += total;
-			addRooms(b.rooms, load.roomIds);
 			return;
 		case 'receptacles':
 			// General-use receptacles of a dwelling are part of the 3 VA/ft² unit load.
-			addRooms(b.rooms, load.roomIds);
 			return;
 		case 'small-appliance':
 			if (firstOfKindOnCircuit) b.smallApplianceCircuits += 1;
-			addRooms(b.rooms, load.roomIds);
 			return;
 		case 'laundry':
 			if (firstOfKindOnCircuit) b.laundryCircuits += 1;

@@ -234,8 +234,8 @@ function dedupe(ids: readonly string[]): string[] {
 export interface RequiredCircuitFacts {
 	smallAppliance: CircuitTexts[];
 	laundry: CircuitTexts[];
-	/** 120 V 20 A circuits with receptacles, by room id served. */
-	receptacle20ARooms: Set<string>;
+	/** 1 at the index in doc.rooms of each room a 120 V 20 A circuit with receptacles serves. */
+	receptacle20ARooms: Uint8Array;
 }
 
 /** The required dwelling circuits of 210.11(C). */
@@ -344,11 +344,10 @@ export function requiredCircuitFindings(
 		['requiredGarage', 'garage', 'garage-circuit', 'the garage receptacles', 'the garage receptacles'],
 	] as const;
 	for (const [key, type, code, okWhat, missingWhat] of required20A) {
-		const ofType = rooms.filter((r) => r.type === type);
-		if (ofType.length === 0) continue;
+		if (!rooms.some((r) => r.type === type)) continue;
 		const rule = section(key, edition);
 		out.push(
-			ofType.some((r) => facts.receptacle20ARooms.has(r.id))
+			rooms.some((r, i) => r.type === type && facts.receptacle20ARooms[i] === 1)
 				? finding('ok', code, `A 120 V 20 A circuit supplies ${okWhat}.`, rule, job)
 				: finding(missing, code, `No 120 V 20 A circuit supplies ${missingWhat}.`, rule, job),
 		);
