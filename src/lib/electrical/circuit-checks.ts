@@ -157,7 +157,7 @@ export interface FeederLoad {
 
 const isStandardRating = (a: number) => (STANDARD_RATINGS_A as readonly number[]).includes(a);
 
-/** The rule labels checkCircuit writes, made once per edition. */
+/** The rule labels the circuit checks write, made once per edition. */
 function rulesOf(ed: Edition) {
 	return {
 		voltageDrop: section('voltageDrop', ed),
@@ -177,11 +177,13 @@ function rulesOf(ed: Edition) {
 		fastenedInPlace: section('fastenedInPlace', ed),
 		cordAndPlug: section('cordAndPlug', ed),
 		circuitDirectory: section('circuitDirectory', ed),
+		afci: section('afci', ed),
+		gfci: section('gfci', ed),
 	};
 }
 const RULES = new Map<Edition, ReturnType<typeof rulesOf>>();
 let lastRules: { ed: Edition; rules: ReturnType<typeof rulesOf> } | null = null;
-function rulesFor(ed: Edition): ReturnType<typeof rulesOf> {
+export function rulesFor(ed: Edition): ReturnType<typeof rulesOf> {
 	if (lastRules?.ed === ed) return lastRules.rules;
 	let r = RULES.get(ed);
 	if (!r) {
@@ -379,7 +381,7 @@ export class CircuitTexts {
 		return this.shared.rooms;
 	}
 	get afciRule(): string {
-		return section('afci', this.shared.ed);
+		return rulesFor(this.shared.ed).afci;
 	}
 	get name(): string | null {
 		return this.rare?.name ?? null;

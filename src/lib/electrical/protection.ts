@@ -1,6 +1,6 @@
 /** GFCI and AFCI requirements by room type and edition (210.8(A), 210.12), and the required dwelling circuits (210.11(C)). */
 import type { CircuitTexts } from './circuit-checks';
-import { nameOf } from './circuit-checks';
+import { nameOf, rulesFor } from './circuit-checks';
 import { finding, findingOf } from './format';
 import type { Circuit, Load, Room, RoomType } from './schema';
 import { section } from './sections';
@@ -145,7 +145,7 @@ export function protectionFindings(
 			where.push(room);
 			if (n === 'required' || need === 'no') need = n;
 		}
-		const rule = section('gfci', edition);
+		const rule = rulesFor(edition).gfci;
 		if (need !== 'no') {
 			if (hasGfci(c)) {
 				t.gfciRooms = where;
@@ -174,7 +174,7 @@ export function protectionFindings(
 			}
 		}
 		if (any) {
-			const rule = section('afci', edition);
+			const rule = rulesFor(edition).afci;
 			t.roomIds = roomIds;
 			const x = t;
 			if (c.breakerType === 'afci' || c.breakerType === 'dual-function') {
