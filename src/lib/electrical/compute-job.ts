@@ -562,11 +562,22 @@ export function computeJob(doc: JobDocument): JobResult {
 		upstreamPct.set(panelId, up);
 	}
 	const circuits: CircuitChecks[] = [];
+	// Findings by severity (ok, note, warning, violation), counted from the circuits' numbers: their
+	// findings are made only when read.
+	const counts = [0, 0, 0, 0];
+	// Circuits of one panel usually follow each other: the lookup is skipped for a repeated panel.
+	let upPanel: string | null = null;
+	let up = 0;
 	for (let i = 0; i < doc.circuits.length; i++) {
 		const r = resultAt[i];
 		if (!r) continue;
-		const up = upstreamPct.get(r.panelId) ?? 0;
+		const panelId = r.panelId;
+		if (panelId !== upPanel) {
+			up = upstreamPct.get(panelId) ?? 0;
+			upPanel = panelId;
+		}
 		if (up > 0 && r.feedsPanelId === null) r.addUpstreamDrop(up);
+		r.countFindings(counts);
 		circuits.push(r);
 	}
 
@@ -637,9 +648,6 @@ export function computeJob(doc: JobDocument): JobResult {
 		const r = work.get(p.id)?.result;
 		if (r) panels.push(r);
 	}
-	// Counted from the circuits' numbers: their findings are made only when read.
-	const counts = [0, 0, 0, 0];
-	for (const r of circuits) r.countFindings(counts);
 	const count = (list: readonly Finding[]) => {
 		for (const f of list) {
 			const s = f.severity;
