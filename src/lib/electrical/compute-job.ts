@@ -23,7 +23,7 @@ import { fig, finding, num, q, roundTo } from './format';
 import { isContinuous, isMotor, unitVA } from './load-values';
 import { circuitVoltage, legOf, legsOf, positionsTaken, rowOf, sideOf } from './positions';
 import { afciOkText, isReceptacleLoad, protectionFindings, requiredCircuitFindings } from './protection';
-import type { RequiredCircuitFacts } from './protection';
+import type { RequiredCircuitFacts, RoomLookup } from './protection';
 import type { Circuit, JobDocument, Load, Panel, Room, VoltageSystem } from './schema';
 import { COMMON_PRACTICE, section } from './sections';
 import { MIN_SERVICE_ONE_FAMILY_A, nextStandardRatingA } from './tables';
@@ -144,35 +144,45 @@ interface CircuitPass {
 	loadStart: Int32Array;
 	/** 1 at the index of each circuit that feeds a panel. */
 	feedsPanel: Uint8Array;
-	/** Index in doc.rooms by room id, and the id last looked up with its index (-1 for no room). */
-	roomIndex: RoomIndex;
-	lastRoomId: string | null;
-	lastRoomAt: number;
+	/** The job's rooms by id. */
+	rooms: RoomFinder;
 	/** 1 at the index in doc.rooms of each room a circuit or load names. */
 	served: Uint8Array;
 	stats: CircuitLoadStats;
 	facts: RequiredCircuitFacts;
 	panelFedBy: ReadonlyMap<string, string>;
 	work: ReadonlyMap<string, PanelWork>;
-	roomsById: ReadonlyMap<string, Room>;
 	circuitResults: Map<string, CircuitChecks>;
 	/** Findings protectionFindings makes for the current circuit. */
 	extra: Finding[];
 }
 
-/** Index in doc.rooms of room `id`, -1 for no room; loads mostly repeat the room before. */
-function roomAt(s: CircuitPass, id: string): number {
-	if (id === s.lastRoomId) return s.lastRoomAt;
-	const i = s.roomIndex.byId.get(id) ?? -1;
-	s.lastRoomId = id;
-	s.lastRoomAt = i;
-	return i;
+/** The job's rooms found by id; loads mostly repeat the room of the one before, so the last is kept. */
+class RoomFinder implements RoomLookup {
+	#lastId: string | null = null;
+	#lastAt = -1;
+	constructor(
+		readonly rooms: readonly Room[],
+		readonly byId: ReadonlyMap<string, number>,
+	) {}
+	/** Index in doc.rooms of room `id`, -1 for no room. */
+	at(id: string): number {
+		if (id === this.#lastId) return this.#lastAt;
+		const i = this.byId.get(id) ?? -1;
+		this.#lastId = id;
+		this.#lastAt = i;
+		return i;
+	}
+	get(id: string): Room | undefined {
+		const i = this.at(id);
+		return i < 0 ? undefined : this.rooms[i];
+	}
 }
 
 /** Marks the rooms of `ids` served. */
 function markServed(s: CircuitPass, ids: readonly string[]): void {
 	for (let j = 0; j < ids.length; j++) {
-		const i = roomAt(s, ids[j] as string);
+		const i = s.rooms.at(ids[j] as string);
 		if (i >= 0) s.served[i] = 1;
 	}
 }
@@ -186,7 +196,7 @@ function runCircuit(
 	c: Circuit,
 	index: number,
 ): void {
-	const { ed, ctx, shared, resultAt, grouped, loadStart, stats, facts, panelFedBy, work, roomsById } = s;
+	const { ed, ctx, shared, resultAt, grouped, loadStart, stats, facts, panelFedBy, work } = s;
 	const p = w.panel;
 	const t = new CircuitChecks(c, shared, index * TEXT_NUMBERS);
 	const from = loadStart[index] as number;
@@ -230,7 +240,7 @@ function runCircuit(
 		const roomsCount = kind === 'lighting' || kind === 'receptacles' || kind === 'small-appliance';
 		const ids = l.roomIds;
 		for (let j = 0; j < ids.length; j++) {
-			const i = roomAt(s, ids[j] as string);
+			const i = s.rooms.at(ids[j] as string);
 			if (i < 0) continue;
 			served[i] = 1;
 			if (roomsCount) bucket.rooms.addIndex(i);
@@ -245,14 +255,14 @@ function runCircuit(
 	if (hasReceptacle && c.poles === 1 && c.ratingA === 20) {
 		const rooms = facts.receptacle20ARooms;
 		for (const r of c.roomIds) {
-			const i = roomAt(s, r);
+			const i = s.rooms.at(r);
 			if (i >= 0) rooms[i] = 1;
 		}
 		for (let k = from; k < to; k++) {
 			const l = grouped[k] as Load;
 			if (isReceptacleLoad(l))
 				for (const r of l.roomIds) {
-					const i = roomAt(s, r);
+					const i = s.rooms.at(r);
 					if (i >= 0) rooms[i] = 1;
 				}
 		}
@@ -279,7 +289,7 @@ function runCircuit(
 	const { positions, legs } = place;
 	const r = checkCircuit(c, p, stats, ctx, feeder, legs, positions, t);
 	const extra = s.extra;
-	const afciOk = protectionFindings(c, grouped, from, to, roomsById, ed, t, r, extra);
+	const afciOk = protectionFindings(c, grouped, from, to, s.rooms, ed, t, r, extra);
 	if (extra.length > 0) {
 		r.addFindings(extra);
 		extra.length = 0;
@@ -501,15 +511,12 @@ export function computeJob(doc: JobDocument): JobResult {
 		grouped,
 		loadStart,
 		feedsPanel,
-		roomIndex,
-		lastRoomId: null,
-		lastRoomAt: -1,
+		rooms: new RoomFinder(doc.rooms, roomIds),
 		served: new Uint8Array(doc.rooms.length),
 		stats,
 		facts,
 		panelFedBy,
 		work,
-		roomsById,
 		circuitResults,
 		extra: [],
 	};

@@ -6,6 +6,11 @@ import type { Circuit, Load, Room, RoomType } from './schema';
 import { section } from './sections';
 import type { Edition, Finding, Target } from './types';
 
+/** Finds a room of the job by id (a Map of the rooms will do). */
+export interface RoomLookup {
+	get(id: string): Room | undefined;
+}
+
 /** Whether a load is supplied through a receptacle outlet. */
 export function isReceptacleLoad(load: Load): boolean {
 	const k = load.kind;
@@ -87,7 +92,7 @@ export function protectionFindings(
 	loads: readonly Load[],
 	from: number,
 	to: number,
-	roomsById: ReadonlyMap<string, Room>,
+	roomsById: RoomLookup,
 	edition: Edition,
 	t: CircuitTexts,
 	owner: { readonly target: Target },
@@ -204,7 +209,7 @@ function gfciNeeded(
 	loads: readonly Load[],
 	from: number,
 	to: number,
-	roomsById: ReadonlyMap<string, Room>,
+	roomsById: RoomLookup,
 	edition: Edition,
 	countertop: boolean,
 ): boolean {
