@@ -270,13 +270,15 @@ function setDrop(
 	const mult = poles === 3 ? Math.sqrt(3) : 2;
 	const vd = (mult * k * amps * lengthFt) / cm;
 	const pct = volts > 0 ? (vd / volts) * 100 : 0;
-	t.dropK = k;
-	t.dropAmps = amps;
-	t.dropLength = lengthFt;
-	t.drop = vd;
-	t.dropVolts = volts;
-	t.dropPercent = pct;
-	t.vdPercent = roundTo(pct, 3);
+	const n = t.n;
+	const o = t.o;
+	n[o + N_DROP_K] = k;
+	n[o + N_DROP_AMPS] = amps;
+	n[o + N_DROP_LENGTH] = lengthFt;
+	n[o + N_DROP] = vd;
+	n[o + N_DROP_VOLTS] = volts;
+	n[o + N_DROP_PERCENT] = pct;
+	n[o + N_VD_PERCENT] = roundTo(pct, 3);
 }
 
 /** Voltage drop by the K method: VD = 2·K·I·L / CM (single-phase) or √3·K·I·L / CM (three-phase). */
@@ -306,6 +308,37 @@ const NONE: readonly never[] = [];
 
 /** Numbers a circuit's texts keep, in one Float64Array for the whole job (no boxed number per field). */
 export const TEXT_NUMBERS = 29;
+// Where each number sits from the circuit's offset. The checks write and read them in place: a
+// number passed through a setter or returned by a getter may be boxed.
+const N_CONNECTED = 0;
+const N_AMPS_VALUE = 1;
+const N_BREAKER_LOAD = 2;
+const N_CONDUCTOR_LOAD = 3;
+const N_NONC = 4;
+const N_CONTINUOUS_VA = 5;
+const N_VA = 6;
+const N_LARGEST_MOTOR_VA = 7;
+const N_DIVISOR = 8;
+const N_FEEDER_CALCULATED_VA = 9;
+const N_COOKING_VA = 10;
+const N_FASTENED_A = 11;
+const N_CORD_A = 12;
+const N_VD_PERCENT = 13;
+const N_UPSTREAM = 14;
+const N_BRANCH = 15;
+const N_TOTAL_DROP = 16;
+const N_DROP_K = 17;
+const N_DROP_AMPS = 18;
+const N_DROP_LENGTH = 19;
+const N_DROP = 20;
+const N_DROP_VOLTS = 21;
+const N_DROP_PERCENT = 22;
+const N_LOADS_FROM = 23;
+const N_V = 24;
+const N_COUNT = 25;
+const N_COLUMN = 26;
+const N_AMP = 27;
+const N_LIMIT = 28;
 
 /** What the circuits of one job share, kept once rather than on each circuit. */
 export interface CircuitShared {
@@ -450,178 +483,178 @@ export class CircuitTexts {
 		return cableText(conductor, CIRCULAR_MILS[conductor.size]);
 	}
 	get v(): number {
-		return this.n[this.o + 24] as number;
+		return this.n[this.o + N_V] as number;
 	}
 	set v(x: number) {
-		this.n[this.o + 24] = x;
+		this.n[this.o + N_V] = x;
 	}
 	get count(): number {
-		return this.n[this.o + 25] as number;
+		return this.n[this.o + N_COUNT] as number;
 	}
 	set count(x: number) {
-		this.n[this.o + 25] = x;
+		this.n[this.o + N_COUNT] = x;
 	}
 	get column(): number {
-		return this.n[this.o + 26] as number;
+		return this.n[this.o + N_COLUMN] as number;
 	}
 	set column(x: number) {
-		this.n[this.o + 26] = x;
+		this.n[this.o + N_COLUMN] = x;
 	}
 	get amp(): number {
-		return this.n[this.o + 27] as number;
+		return this.n[this.o + N_AMP] as number;
 	}
 	set amp(x: number) {
-		this.n[this.o + 27] = x;
+		this.n[this.o + N_AMP] = x;
 	}
 	get limit(): number {
-		return this.n[this.o + 28] as number;
+		return this.n[this.o + N_LIMIT] as number;
 	}
 	set limit(x: number) {
-		this.n[this.o + 28] = x;
+		this.n[this.o + N_LIMIT] = x;
 	}
 	get connected(): number {
-		return this.n[this.o + 0] as number;
+		return this.n[this.o + N_CONNECTED] as number;
 	}
 	set connected(x: number) {
-		this.n[this.o + 0] = x;
+		this.n[this.o + N_CONNECTED] = x;
 	}
 	get ampsValue(): number {
-		return this.n[this.o + 1] as number;
+		return this.n[this.o + N_AMPS_VALUE] as number;
 	}
 	set ampsValue(x: number) {
-		this.n[this.o + 1] = x;
+		this.n[this.o + N_AMPS_VALUE] = x;
 	}
 	get breakerLoad(): number {
-		return this.n[this.o + 2] as number;
+		return this.n[this.o + N_BREAKER_LOAD] as number;
 	}
 	set breakerLoad(x: number) {
-		this.n[this.o + 2] = x;
+		this.n[this.o + N_BREAKER_LOAD] = x;
 	}
 	get conductorLoad(): number {
-		return this.n[this.o + 3] as number;
+		return this.n[this.o + N_CONDUCTOR_LOAD] as number;
 	}
 	set conductorLoad(x: number) {
-		this.n[this.o + 3] = x;
+		this.n[this.o + N_CONDUCTOR_LOAD] = x;
 	}
 	get nonc(): number {
-		return this.n[this.o + 4] as number;
+		return this.n[this.o + N_NONC] as number;
 	}
 	set nonc(x: number) {
-		this.n[this.o + 4] = x;
+		this.n[this.o + N_NONC] = x;
 	}
 	get continuousVA(): number {
-		return this.n[this.o + 5] as number;
+		return this.n[this.o + N_CONTINUOUS_VA] as number;
 	}
 	set continuousVA(x: number) {
-		this.n[this.o + 5] = x;
+		this.n[this.o + N_CONTINUOUS_VA] = x;
 	}
 	get va(): number {
-		return this.n[this.o + 6] as number;
+		return this.n[this.o + N_VA] as number;
 	}
 	set va(x: number) {
-		this.n[this.o + 6] = x;
+		this.n[this.o + N_VA] = x;
 	}
 	get largestMotorVA(): number {
-		return this.n[this.o + 7] as number;
+		return this.n[this.o + N_LARGEST_MOTOR_VA] as number;
 	}
 	set largestMotorVA(x: number) {
-		this.n[this.o + 7] = x;
+		this.n[this.o + N_LARGEST_MOTOR_VA] = x;
 	}
 	get divisor(): number {
-		return this.n[this.o + 8] as number;
+		return this.n[this.o + N_DIVISOR] as number;
 	}
 	set divisor(x: number) {
-		this.n[this.o + 8] = x;
+		this.n[this.o + N_DIVISOR] = x;
 	}
 	get feederCalculatedVA(): number {
-		return this.n[this.o + 9] as number;
+		return this.n[this.o + N_FEEDER_CALCULATED_VA] as number;
 	}
 	set feederCalculatedVA(x: number) {
-		this.n[this.o + 9] = x;
+		this.n[this.o + N_FEEDER_CALCULATED_VA] = x;
 	}
 	get cookingVA(): number {
-		return this.n[this.o + 10] as number;
+		return this.n[this.o + N_COOKING_VA] as number;
 	}
 	set cookingVA(x: number) {
-		this.n[this.o + 10] = x;
+		this.n[this.o + N_COOKING_VA] = x;
 	}
 	get fastenedA(): number {
-		return this.n[this.o + 11] as number;
+		return this.n[this.o + N_FASTENED_A] as number;
 	}
 	set fastenedA(x: number) {
-		this.n[this.o + 11] = x;
+		this.n[this.o + N_FASTENED_A] = x;
 	}
 	get cordA(): number {
-		return this.n[this.o + 12] as number;
+		return this.n[this.o + N_CORD_A] as number;
 	}
 	set cordA(x: number) {
-		this.n[this.o + 12] = x;
+		this.n[this.o + N_CORD_A] = x;
 	}
 	get vdPercent(): number {
-		return this.n[this.o + 13] as number;
+		return this.n[this.o + N_VD_PERCENT] as number;
 	}
 	set vdPercent(x: number) {
-		this.n[this.o + 13] = x;
+		this.n[this.o + N_VD_PERCENT] = x;
 	}
 	get upstream(): number {
-		return this.n[this.o + 14] as number;
+		return this.n[this.o + N_UPSTREAM] as number;
 	}
 	set upstream(x: number) {
-		this.n[this.o + 14] = x;
+		this.n[this.o + N_UPSTREAM] = x;
 	}
 	get branch(): number {
-		return this.n[this.o + 15] as number;
+		return this.n[this.o + N_BRANCH] as number;
 	}
 	set branch(x: number) {
-		this.n[this.o + 15] = x;
+		this.n[this.o + N_BRANCH] = x;
 	}
 	get totalDrop(): number {
-		return this.n[this.o + 16] as number;
+		return this.n[this.o + N_TOTAL_DROP] as number;
 	}
 	set totalDrop(x: number) {
-		this.n[this.o + 16] = x;
+		this.n[this.o + N_TOTAL_DROP] = x;
 	}
 	get dropK(): number {
-		return this.n[this.o + 17] as number;
+		return this.n[this.o + N_DROP_K] as number;
 	}
 	set dropK(x: number) {
-		this.n[this.o + 17] = x;
+		this.n[this.o + N_DROP_K] = x;
 	}
 	get dropAmps(): number {
-		return this.n[this.o + 18] as number;
+		return this.n[this.o + N_DROP_AMPS] as number;
 	}
 	set dropAmps(x: number) {
-		this.n[this.o + 18] = x;
+		this.n[this.o + N_DROP_AMPS] = x;
 	}
 	get dropLength(): number {
-		return this.n[this.o + 19] as number;
+		return this.n[this.o + N_DROP_LENGTH] as number;
 	}
 	set dropLength(x: number) {
-		this.n[this.o + 19] = x;
+		this.n[this.o + N_DROP_LENGTH] = x;
 	}
 	get drop(): number {
-		return this.n[this.o + 20] as number;
+		return this.n[this.o + N_DROP] as number;
 	}
 	set drop(x: number) {
-		this.n[this.o + 20] = x;
+		this.n[this.o + N_DROP] = x;
 	}
 	get dropVolts(): number {
-		return this.n[this.o + 21] as number;
+		return this.n[this.o + N_DROP_VOLTS] as number;
 	}
 	set dropVolts(x: number) {
-		this.n[this.o + 21] = x;
+		this.n[this.o + N_DROP_VOLTS] = x;
 	}
 	get dropPercent(): number {
-		return this.n[this.o + 22] as number;
+		return this.n[this.o + N_DROP_PERCENT] as number;
 	}
 	set dropPercent(x: number) {
-		this.n[this.o + 22] = x;
+		this.n[this.o + N_DROP_PERCENT] = x;
 	}
 	get loadsFrom(): number {
-		return this.n[this.o + 23] as number;
+		return this.n[this.o + N_LOADS_FROM] as number;
 	}
 	set loadsFrom(x: number) {
-		this.n[this.o + 23] = x;
+		this.n[this.o + N_LOADS_FROM] = x;
 	}
 }
 
@@ -841,16 +874,16 @@ export class CircuitChecks extends CircuitTexts implements CircuitResult {
 	}
 	/** connectedVA.value, without making the figure. */
 	get connectedValue(): number {
-		return roundTo(this.connected, 6);
+		return roundTo(this.n[this.o + N_CONNECTED] as number, 6);
 	}
 	/** voltageDrop.percent.value, without making the figure. */
 	get dropPercentValue(): number {
-		return this.vdPercent;
+		return this.n[this.o + N_VD_PERCENT] as number;
 	}
 	/** legAmps[i], without making the list. */
 	legAmp(i: number): number {
 		if (this.#feederLegs) return this.#feederLegs[i] ?? 0;
-		return i < this.legs.length ? this.ampsValue : 0;
+		return i < this.legs.length ? (this.n[this.o + N_AMPS_VALUE] as number) : 0;
 	}
 	get connectedVA(): Figure {
 		const m = this.#m;
@@ -958,11 +991,13 @@ export class CircuitChecks extends CircuitTexts implements CircuitResult {
 	}
 	/** Adds the voltage drop of the feeders between this circuit's panel and the service. */
 	addUpstreamDrop(up: number): void {
-		const branch = this.vdPercent;
+		const n = this.n;
+		const o = this.o;
+		const branch = n[o + N_VD_PERCENT] as number;
 		const total = up + branch;
-		this.upstream = up;
-		this.branch = branch;
-		this.totalDrop = total;
+		n[o + N_UPSTREAM] = up;
+		n[o + N_BRANCH] = branch;
+		n[o + N_TOTAL_DROP] = total;
 		this.#flags |= total > 5 ? TOTAL | TOTAL_NOTE : TOTAL;
 		const made = this.#made?.findings;
 		if (made && total > 5)
@@ -1004,6 +1039,8 @@ export class CircuitChecks extends CircuitTexts implements CircuitResult {
 	#emit(out: Finding[] | null, counts: number[] | null): void {
 		const f = this.#flags;
 		const ed = this.ed;
+		const n = this.n;
+		const o = this.o;
 		const R = rulesFor(ed);
 		const ratingA = this.ratingA;
 		const feeder = (f & FEEDER) !== 0;
@@ -1014,7 +1051,7 @@ export class CircuitChecks extends CircuitTexts implements CircuitResult {
 				: (f & MOTOR) !== 0
 					? R.motorConductor
 					: R.continuousConductor;
-		const over = this.breakerLoad > ratingA + 1e-9;
+		const over = (n[o + N_BREAKER_LOAD] as number) > ratingA + 1e-9;
 		this.#add(
 			out,
 			counts,
@@ -1023,13 +1060,13 @@ export class CircuitChecks extends CircuitTexts implements CircuitResult {
 			over ? overloadText : withinText,
 			breakerRule,
 		);
-		const amp = this.conductorAmpacityA === null ? null : this.amp;
+		const amp = this.conductorAmpacityA === null ? null : (n[o + N_AMP] as number);
 		const limit = this.smallConductorLimitA === null ? null : this.smallConductorLimitA.value;
-		const motorOnly = (f & MOTOR_OR_AC_ONLY) !== 0 && this.count > 0;
+		const motorOnly = (f & MOTOR_OR_AC_ONLY) !== 0 && (n[o + N_COUNT] as number) > 0;
 		if (amp === null) {
 			this.#add(out, counts, 'warning', 'ampacity-not-tabulated', notTabulatedText, R.ampacityTable);
 		} else {
-			const under = this.conductorLoad > amp + 1e-9;
+			const under = (n[o + N_CONDUCTOR_LOAD] as number) > amp + 1e-9;
 			this.#add(
 				out,
 				counts,
@@ -1072,7 +1109,7 @@ export class CircuitChecks extends CircuitTexts implements CircuitResult {
 				if (out) out.push(otherVoltageFinding(this, o, this.target));
 				else if (counts) counts[1] = (counts[1] as number) + 1;
 			}
-		if (this.vdPercent > (feeder ? 2 : 3)) {
+		if ((n[o + N_VD_PERCENT] as number) > (feeder ? 2 : 3)) {
 			this.#add(out, counts, 'note', 'voltage-drop', feeder ? feederDropText : branchDropText, R.voltageDrop);
 		} else if (!feeder) {
 			this.#add(out, counts, 'ok', 'voltage-drop', dropWithinText, R.voltageDrop);
@@ -1080,7 +1117,8 @@ export class CircuitChecks extends CircuitTexts implements CircuitResult {
 		if (this.circuit.label.trim().length === 0) {
 			this.#add(out, counts, 'violation', 'label-missing', labelMissingText, R.circuitDirectory);
 		}
-		if (!feeder && this.count === 0) this.#add(out, counts, 'note', 'no-loads', noLoadsText, COMMON_PRACTICE);
+		if (!feeder && n[o + N_COUNT] === 0)
+			this.#add(out, counts, 'note', 'no-loads', noLoadsText, COMMON_PRACTICE);
 		const extra = this.#extra;
 		if (extra) {
 			if (out) for (const x of extra) out.push(x);
@@ -1141,8 +1179,11 @@ export function checkCircuit(
 	const system = panel.voltageSystem;
 	const v = circuitVoltage(poles, system);
 	const divisor = poles === 3 ? v * Math.sqrt(3) : v;
-	t.v = v;
-	t.divisor = divisor;
+	// Numbers go straight into the job's array (see N_CONNECTED).
+	const n = t.n;
+	const o = t.o;
+	n[o + N_V] = v;
+	n[o + N_DIVISOR] = divisor;
 	let flags = 0;
 	const voltage =
 		sharedFigure(ctx, VOLTAGE, system, 10 + poles) ??
@@ -1155,29 +1196,29 @@ export function checkCircuit(
 		);
 
 	const connected = feeder ? feeder.connectedVA : stats.connectedVA;
-	t.connected = connected;
-	t.count = stats.count;
+	n[o + N_CONNECTED] = connected;
+	n[o + N_COUNT] = stats.count;
 	if (feeder) {
 		flags |= FEEDER;
 		t.feederPanelName = feeder.panelName;
-		t.feederCalculatedVA = feeder.calculatedVA;
+		n[o + N_FEEDER_CALCULATED_VA] = feeder.calculatedVA;
 	}
 	const ampsValue = connected / divisor;
-	t.ampsValue = ampsValue;
+	n[o + N_AMPS_VALUE] = ampsValue;
 
 	let breakerLoad: number;
 	let conductorLoad: number;
 	if (feeder) {
 		breakerLoad = feeder.calculatedVA / divisor;
-		t.breakerLoad = breakerLoad;
+		n[o + N_BREAKER_LOAD] = breakerLoad;
 		conductorLoad = breakerLoad;
 	} else if (stats.onlyCooking && stats.count > 0 && stats.cookingKW.some((k) => k >= 8.75)) {
 		// A household range of 8.75 kW or more: the branch-circuit load may be taken from Table 220.55.
 		flags |= COOKING;
 		const d = cookingDemand(stats.cookingKW);
 		breakerLoad = d.va / divisor;
-		t.breakerLoad = breakerLoad;
-		t.cookingVA = d.va;
+		n[o + N_BREAKER_LOAD] = breakerLoad;
+		n[o + N_COOKING_VA] = d.va;
 		t.cookingWorking = d.working;
 		conductorLoad = breakerLoad;
 	} else {
@@ -1187,15 +1228,15 @@ export function checkCircuit(
 		const va = nonc + 1.25 * continuousVA;
 		const load = va / divisor;
 		breakerLoad = load;
-		t.continuousVA = continuousVA;
-		t.largestMotorVA = largestMotorVA;
-		t.nonc = nonc;
-		t.va = va;
-		t.breakerLoad = load;
+		n[o + N_CONTINUOUS_VA] = continuousVA;
+		n[o + N_LARGEST_MOTOR_VA] = largestMotorVA;
+		n[o + N_NONC] = nonc;
+		n[o + N_VA] = va;
+		n[o + N_BREAKER_LOAD] = load;
 		conductorLoad = load + (0.25 * largestMotorVA) / divisor;
 		if (largestMotorVA > 0) flags |= MOTOR;
 	}
-	t.conductorLoad = conductorLoad;
+	n[o + N_CONDUCTOR_LOAD] = conductorLoad;
 
 	const breakerType = c.breakerType;
 	const breakerA =
@@ -1219,7 +1260,7 @@ export function checkCircuit(
 	const column = Math.min(insulationC, terminalC) as TemperatureC;
 	const amp = tableAmpacity(size, material, column, ed);
 	const wire = wireText(c.conductor);
-	t.column = column;
+	n[o + N_COLUMN] = column;
 	const ampacityKey = insulationC * 10_000 + terminalC * 10 + (ed === '2017' ? 0 : ed === '2020' ? 1 : 2);
 	const conductorAmpacityA =
 		amp === null
@@ -1251,8 +1292,8 @@ export function checkCircuit(
 				));
 
 	if (amp !== null) {
-		t.amp = amp;
-		if (limit !== null && ratingA > limit) t.limit = limit;
+		n[o + N_AMP] = amp;
+		if (limit !== null && ratingA > limit) n[o + N_LIMIT] = limit;
 	}
 	if (stats.motorOrAcOnly) flags |= MOTOR_OR_AC_ONLY;
 	if (stats.hasReceptacles) flags |= HAS_RECEPTACLES;
@@ -1260,14 +1301,14 @@ export function checkCircuit(
 		flags |= GENERAL;
 		const fastenedA = stats.fastenedVA / divisor;
 		if (fastenedA > 0.5 * ratingA + 1e-9) {
-			t.fastenedA = fastenedA;
+			n[o + N_FASTENED_A] = fastenedA;
 			flags |= FASTENED_OVER;
 		}
 	}
 	if (!feeder && stats.largestCordVA > 0) {
 		const cordA = stats.largestCordVA / divisor;
 		if (cordA > 0.8 * ratingA + 1e-9) {
-			t.cordA = cordA;
+			n[o + N_CORD_A] = cordA;
 			flags |= CORD_OVER;
 		}
 	}
