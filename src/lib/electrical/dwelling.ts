@@ -147,10 +147,14 @@ export function mergeBucket(into: LoadBucket, from: LoadBucket, rooms = true): L
 
 /** Keeps the three largest values, largest first. */
 function pushTop3(top: number[], v: number): void {
-	if (top.length === 3 && v <= (top[2] ?? 0)) return;
-	top.push(v);
-	top.sort((a, b) => b - a);
-	if (top.length > 3) top.length = 3;
+	if (top.length === 3 && v <= (top[2] as number)) return;
+	// Insert in place, largest first: no sort (and no comparator made) for each load.
+	let i = top.length < 3 ? top.length : 2;
+	while (i > 0 && (top[i - 1] as number) < v) {
+		top[i] = top[i - 1] as number;
+		i--;
+	}
+	top[i] = v;
 }
 
 /**

@@ -2,6 +2,7 @@
 import type { CircuitTexts } from './circuit-checks';
 import { nameOf, rulesFor } from './circuit-checks';
 import { finding, findingOf } from './format';
+import type { TextOf } from './format';
 import type { Circuit, Load, Room, RoomType } from './schema';
 import { section } from './sections';
 import type { Edition, Finding, Target } from './types';
@@ -243,6 +244,15 @@ export interface RequiredCircuitFacts {
 	receptacle20ARooms: Uint8Array;
 }
 
+const smallApplianceRatingText = (c: CircuitTexts) =>
+	`${nameOf(c)} supplies small-appliance receptacles but is rated ${c.ratingA} A; these circuits are 20 A.`;
+const laundryRatingText = (c: CircuitTexts) =>
+	`${nameOf(c)} supplies the laundry receptacles but is rated ${c.ratingA} A; the laundry circuit is 20 A.`;
+
+function ratingFinding(c: CircuitTexts, code: string, text: TextOf<CircuitTexts>, rule: string): Finding {
+	return findingOf('violation', code, text, c, rule, { kind: 'circuit', id: c.id });
+}
+
 /** The required dwelling circuits of 210.11(C). */
 export function requiredCircuitFindings(
 	facts: RequiredCircuitFacts,
@@ -256,33 +266,18 @@ export function requiredCircuitFindings(
 	const missing = existingDwelling ? 'warning' : 'violation';
 	const hasType = (t: RoomType) => rooms.some((r) => r.type === t);
 
-	for (const c of facts.smallAppliance) {
-		if (c.ratingA !== 20) {
-			out.push(
-				finding(
-					'violation',
-					'small-appliance-rating',
-					() =>
-						`${nameOf(c)} supplies small-appliance receptacles but is rated ${c.ratingA} A; these circuits are 20 A.`,
-					section('requiredSmallAppliance', edition),
-					{ kind: 'circuit', id: c.id },
-				),
-			);
-		}
+	// Indexed loops, and the messages made in a function of their own: a closure over the loop's
+	// variable would cost a context for every circuit of the list.
+	const sa20 = section('requiredSmallAppliance', edition);
+	for (let i = 0; i < facts.smallAppliance.length; i++) {
+		const c = facts.smallAppliance[i] as CircuitTexts;
+		if (c.ratingA !== 20)
+			out.push(ratingFinding(c, 'small-appliance-rating', smallApplianceRatingText, sa20));
 	}
-	for (const c of facts.laundry) {
-		if (c.ratingA !== 20) {
-			out.push(
-				finding(
-					'violation',
-					'laundry-rating',
-					() =>
-						`${nameOf(c)} supplies the laundry receptacles but is rated ${c.ratingA} A; the laundry circuit is 20 A.`,
-					section('requiredLaundry', edition),
-					{ kind: 'circuit', id: c.id },
-				),
-			);
-		}
+	const la20 = section('requiredLaundry', edition);
+	for (let i = 0; i < facts.laundry.length; i++) {
+		const c = facts.laundry[i] as CircuitTexts;
+		if (c.ratingA !== 20) out.push(ratingFinding(c, 'laundry-rating', laundryRatingText, la20));
 	}
 	const sa = facts.smallAppliance.length;
 	const saRule = section('requiredSmallAppliance', edition);
