@@ -348,6 +348,8 @@ class CircuitIndex {
 	}
 }
 
+const NO_ORDER = new Int32Array(0);
+
 const EXCLUDED_FROM_AREA = new Set(['garage', 'outdoor', 'attic', 'crawl-space']);
 
 function roomCounts(r: Room): boolean {
@@ -362,9 +364,16 @@ function supplyOf(system: VoltageSystem): Supply {
 
 interface PanelWork {
 	panel: Panel;
-	circuits: Circuit[];
-	/** Index in doc.circuits of each of `circuits`. */
-	indexes: number[];
+	/** Index of this work in the job's list of them. */
+	ordinal: number;
+	/**
+	 * The panel's circuits, in document order: the k-th (k < count) is all[order[from + k]]. One
+	 * list for the job's circuits grouped by panel, rather than two growing arrays per panel.
+	 */
+	all: readonly Circuit[];
+	order: Int32Array;
+	from: number;
+	count: number;
 	own: { existing: LoadBucket; added: LoadBucket };
 	subtree: LoadBucket | null;
 	connectedVA: number;
@@ -388,18 +397,24 @@ export function computeJob(doc: JobDocument): JobResult {
 	const roomIndex: RoomIndex = { byId: roomIds, count: doc.rooms.length };
 
 	const work = new Map<string, PanelWork>();
+	const works: PanelWork[] = [];
 	for (const p of doc.panels) {
-		work.set(p.id, {
+		const w: PanelWork = {
 			panel: p,
-			circuits: [],
-			indexes: [],
+			ordinal: works.length,
+			all: doc.circuits,
+			order: NO_ORDER,
+			from: 0,
+			count: 0,
 			own: { existing: emptyBucket(roomIndex), added: emptyBucket(roomIndex) },
 			subtree: null,
 			connectedVA: 0,
 			legAmps: legsOf(p.voltageSystem).map(() => 0),
 			calculatedVA: 0,
 			result: null,
-		});
+		};
+		works.push(w);
+		work.set(p.id, w);
 	}
 	const panelFedBy = new Map<string, string>(); // circuit id → sub panel id
 	for (const p of doc.panels) if (p.fedFromCircuitId !== null) panelFedBy.set(p.fedFromCircuitId, p.id);
@@ -418,18 +433,39 @@ export function computeJob(doc: JobDocument): JobResult {
 	// Circuits of one panel usually follow each other: the lookup is skipped for a repeated panel.
 	let lastPanelId: string | null = null;
 	let lastWork: PanelWork | undefined;
+	// The ordinal of the work of each circuit's panel; -1 for a removed circuit or one in no panel.
+	const panelAt = new Int32Array(doc.circuits.length);
+	let listed = 0;
 	for (let i = 0; i < doc.circuits.length; i++) {
 		const c = doc.circuits[i] as Circuit;
 		if (named.size > 0 && named.has(c.id)) index.name(c.id, i);
+		panelAt[i] = -1;
 		if (c.status === 'removed') continue;
 		if (c.status === 'existing' || c.status === 'modified') existingDwelling = true;
 		const w = c.panelId === lastPanelId ? lastWork : work.get(c.panelId);
 		lastPanelId = c.panelId;
 		lastWork = w;
 		if (w) {
-			w.circuits.push(c);
-			w.indexes.push(i);
+			panelAt[i] = w.ordinal;
+			w.count++;
+			listed++;
 		}
+	}
+	// Each panel's circuits in one list, in document order.
+	const order = new Int32Array(listed);
+	const fillAt = new Int32Array(works.length);
+	let start = 0;
+	for (const w of works) {
+		w.order = order;
+		w.from = start;
+		fillAt[w.ordinal] = start;
+		start += w.count;
+	}
+	for (let i = 0; i < doc.circuits.length; i++) {
+		const at = panelAt[i] as number;
+		if (at < 0) continue;
+		order[fillAt[at] as number] = i;
+		fillAt[at] = (fillAt[at] as number) + 1;
 	}
 	const feedsPanel = new Uint8Array(doc.circuits.length);
 	for (const id of panelFedBy.keys()) {
@@ -531,8 +567,9 @@ export function computeJob(doc: JobDocument): JobResult {
 			places = new Map();
 			placesBySystem.set(p.voltageSystem, places);
 		}
-		for (let k = 0; k < w.circuits.length; k++) {
-			runCircuit(pass, w, legIndex, places, w.circuits[k] as Circuit, w.indexes[k] as number);
+		for (let k = 0; k < w.count; k++) {
+			const i = w.order[w.from + k] as number;
+			runCircuit(pass, w, legIndex, places, doc.circuits[i] as Circuit, i);
 		}
 		// Everything this panel supplies, for its calculated load. The sole main panel's rooms are not
 		// read (its area is the job's), so they are not gathered.
@@ -761,10 +798,10 @@ function panelResult(
 	const p = w.panel;
 	const target = { kind: 'panel', id: p.id } as const;
 	const findings: Finding[] = [];
-	// The circuit in each position (its index in w.circuits), -1 when free; the slots are listed when first read.
+	// The circuit in each position (its k in the panel's list), -1 when free; the slots are listed when first read.
 	const occupant = new Int32Array(p.spaces).fill(-1);
-	for (let k = 0; k < w.circuits.length; k++) {
-		const c = w.circuits[k] as Circuit;
+	for (let k = 0; k < w.count; k++) {
+		const c = circuitAt(w, k);
 		const last = c.position + 2 * (c.poles - 1);
 		let ct: Target | null = null;
 		if (last > p.spaces) {
@@ -776,7 +813,7 @@ function panelResult(
 			if (at === undefined) continue;
 			if (at >= 0) {
 				ct ??= { kind: 'circuit', id: c.id };
-				findings.push(positionConflict(c, w.circuits[at] as Circuit, t, p, ct));
+				findings.push(positionConflict(c, circuitAt(w, at), t, p, ct));
 			} else occupant[t - 1] = k;
 		}
 		if (c.multiwireWith !== null && c.id < c.multiwireWith) {
@@ -841,7 +878,7 @@ function panelResult(
 	// Plain values for the texts, which are written when first read.
 	const connected = w.connectedVA;
 	const calculated = w.calculatedVA;
-	const circuitCount = w.circuits.length;
+	const circuitCount = w.count;
 	const connectedVA = fig(
 		roundTo(connected, 3),
 		'VA',
@@ -961,7 +998,7 @@ function panelResult(
 		voltageSystem: p.voltageSystem,
 		spaces: p.spaces,
 		get positions() {
-			return (slots ??= positionSlots(p, w.circuits, occupant));
+			return (slots ??= positionSlots(w, occupant));
 		},
 		used,
 		free,
@@ -986,8 +1023,14 @@ function panelResult(
 	};
 }
 
-/** The position slots of a panel from the circuit in each position (index in `circuits`, -1 when free). */
-function positionSlots(p: Panel, circuits: readonly Circuit[], occupant: Int32Array): PositionSlot[] {
+/** The k-th circuit of a panel's list. */
+function circuitAt(w: PanelWork, k: number): Circuit {
+	return w.all[w.order[w.from + k] as number] as Circuit;
+}
+
+/** The position slots of a panel from the circuit in each position (its k in the panel's list, -1 when free). */
+function positionSlots(w: PanelWork, occupant: Int32Array): PositionSlot[] {
+	const p = w.panel;
 	const slots: PositionSlot[] = [];
 	for (let pos = 1; pos <= p.spaces; pos++) {
 		const at = occupant[pos - 1] as number;
@@ -996,7 +1039,7 @@ function positionSlots(p: Panel, circuits: readonly Circuit[], occupant: Int32Ar
 			row: rowOf(pos),
 			side: sideOf(pos),
 			leg: legOf(pos, p.voltageSystem),
-			circuitId: at < 0 ? null : (circuits[at] as Circuit).id,
+			circuitId: at < 0 ? null : circuitAt(w, at).id,
 		});
 	}
 	return slots;
