@@ -485,170 +485,86 @@ export class CircuitTexts {
 	get v(): number {
 		return this.n[this.o + N_V] as number;
 	}
-	set v(x: number) {
-		this.n[this.o + N_V] = x;
-	}
 	get count(): number {
 		return this.n[this.o + N_COUNT] as number;
-	}
-	set count(x: number) {
-		this.n[this.o + N_COUNT] = x;
 	}
 	get column(): number {
 		return this.n[this.o + N_COLUMN] as number;
 	}
-	set column(x: number) {
-		this.n[this.o + N_COLUMN] = x;
-	}
 	get amp(): number {
 		return this.n[this.o + N_AMP] as number;
-	}
-	set amp(x: number) {
-		this.n[this.o + N_AMP] = x;
 	}
 	get limit(): number {
 		return this.n[this.o + N_LIMIT] as number;
 	}
-	set limit(x: number) {
-		this.n[this.o + N_LIMIT] = x;
-	}
 	get connected(): number {
 		return this.n[this.o + N_CONNECTED] as number;
-	}
-	set connected(x: number) {
-		this.n[this.o + N_CONNECTED] = x;
 	}
 	get ampsValue(): number {
 		return this.n[this.o + N_AMPS_VALUE] as number;
 	}
-	set ampsValue(x: number) {
-		this.n[this.o + N_AMPS_VALUE] = x;
-	}
 	get breakerLoad(): number {
 		return this.n[this.o + N_BREAKER_LOAD] as number;
-	}
-	set breakerLoad(x: number) {
-		this.n[this.o + N_BREAKER_LOAD] = x;
 	}
 	get conductorLoad(): number {
 		return this.n[this.o + N_CONDUCTOR_LOAD] as number;
 	}
-	set conductorLoad(x: number) {
-		this.n[this.o + N_CONDUCTOR_LOAD] = x;
-	}
 	get nonc(): number {
 		return this.n[this.o + N_NONC] as number;
-	}
-	set nonc(x: number) {
-		this.n[this.o + N_NONC] = x;
 	}
 	get continuousVA(): number {
 		return this.n[this.o + N_CONTINUOUS_VA] as number;
 	}
-	set continuousVA(x: number) {
-		this.n[this.o + N_CONTINUOUS_VA] = x;
-	}
 	get va(): number {
 		return this.n[this.o + N_VA] as number;
-	}
-	set va(x: number) {
-		this.n[this.o + N_VA] = x;
 	}
 	get largestMotorVA(): number {
 		return this.n[this.o + N_LARGEST_MOTOR_VA] as number;
 	}
-	set largestMotorVA(x: number) {
-		this.n[this.o + N_LARGEST_MOTOR_VA] = x;
-	}
 	get divisor(): number {
 		return this.n[this.o + N_DIVISOR] as number;
-	}
-	set divisor(x: number) {
-		this.n[this.o + N_DIVISOR] = x;
 	}
 	get feederCalculatedVA(): number {
 		return this.n[this.o + N_FEEDER_CALCULATED_VA] as number;
 	}
-	set feederCalculatedVA(x: number) {
-		this.n[this.o + N_FEEDER_CALCULATED_VA] = x;
-	}
 	get cookingVA(): number {
 		return this.n[this.o + N_COOKING_VA] as number;
-	}
-	set cookingVA(x: number) {
-		this.n[this.o + N_COOKING_VA] = x;
 	}
 	get fastenedA(): number {
 		return this.n[this.o + N_FASTENED_A] as number;
 	}
-	set fastenedA(x: number) {
-		this.n[this.o + N_FASTENED_A] = x;
-	}
 	get cordA(): number {
 		return this.n[this.o + N_CORD_A] as number;
-	}
-	set cordA(x: number) {
-		this.n[this.o + N_CORD_A] = x;
 	}
 	get vdPercent(): number {
 		return this.n[this.o + N_VD_PERCENT] as number;
 	}
-	set vdPercent(x: number) {
-		this.n[this.o + N_VD_PERCENT] = x;
-	}
 	get upstream(): number {
 		return this.n[this.o + N_UPSTREAM] as number;
-	}
-	set upstream(x: number) {
-		this.n[this.o + N_UPSTREAM] = x;
 	}
 	get branch(): number {
 		return this.n[this.o + N_BRANCH] as number;
 	}
-	set branch(x: number) {
-		this.n[this.o + N_BRANCH] = x;
-	}
 	get totalDrop(): number {
 		return this.n[this.o + N_TOTAL_DROP] as number;
-	}
-	set totalDrop(x: number) {
-		this.n[this.o + N_TOTAL_DROP] = x;
 	}
 	get dropK(): number {
 		return this.n[this.o + N_DROP_K] as number;
 	}
-	set dropK(x: number) {
-		this.n[this.o + N_DROP_K] = x;
-	}
 	get dropAmps(): number {
 		return this.n[this.o + N_DROP_AMPS] as number;
-	}
-	set dropAmps(x: number) {
-		this.n[this.o + N_DROP_AMPS] = x;
 	}
 	get dropLength(): number {
 		return this.n[this.o + N_DROP_LENGTH] as number;
 	}
-	set dropLength(x: number) {
-		this.n[this.o + N_DROP_LENGTH] = x;
-	}
 	get drop(): number {
 		return this.n[this.o + N_DROP] as number;
-	}
-	set drop(x: number) {
-		this.n[this.o + N_DROP] = x;
 	}
 	get dropVolts(): number {
 		return this.n[this.o + N_DROP_VOLTS] as number;
 	}
-	set dropVolts(x: number) {
-		this.n[this.o + N_DROP_VOLTS] = x;
-	}
 	get dropPercent(): number {
 		return this.n[this.o + N_DROP_PERCENT] as number;
-	}
-	set dropPercent(x: number) {
-		this.n[this.o + N_DROP_PERCENT] = x;
 	}
 	get loadsFrom(): number {
 		return this.n[this.o + N_LOADS_FROM] as number;
