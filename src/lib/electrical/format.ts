@@ -143,22 +143,13 @@ export function figOf<T>(value: number, unit: Unit, rule: string, text: TextOf<T
 	return new LazyFigure(value, unit, rule, text as TextOf<unknown>, arg);
 }
 
-class LazyLine extends LazyText implements Line {
+class LazyLine extends LazyFigure implements Line {
 	key: string;
 	label: string;
-	value: number;
-	unit: Unit;
-	rule: string;
 	constructor(key: string, label: string, value: number, unit: Unit, rule: string, text: TextOf<unknown>) {
-		super(text, undefined);
+		super(value, unit, rule, text, undefined);
 		this.key = key;
 		this.label = label;
-		this.value = value;
-		this.unit = unit;
-		this.rule = rule;
-	}
-	get working(): string {
-		return this.text();
 	}
 	toJSON(): Line {
 		return {
