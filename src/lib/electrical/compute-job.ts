@@ -478,9 +478,12 @@ export function computeJob(doc: JobDocument): JobResult {
 	// Loads of one circuit usually follow each other: the lookup is skipped for a repeated id.
 	let lastId: string | null = null;
 	let lastIndex: number | undefined;
+	// Whether the document already lists the loads by circuit, in the circuits' order.
+	let inOrder = true;
 	for (let k = 0; k < doc.loads.length; k++) {
 		const id = (doc.loads[k] as Load).circuitId;
 		const i = id === lastId ? lastIndex : index.find(id, lastIndex === undefined ? 0 : lastIndex + 1);
+		if (i === undefined || (lastIndex !== undefined && i < lastIndex)) inOrder = false;
 		lastId = id;
 		lastIndex = i;
 		loadCircuit[k] = i === undefined ? -1 : i;
@@ -488,13 +491,16 @@ export function computeJob(doc: JobDocument): JobResult {
 	}
 	for (let i = 0; i < doc.circuits.length; i++)
 		loadStart[i + 1] = (loadStart[i + 1] as number) + (loadStart[i] as number);
-	const grouped: Load[] = new Array(loadStart[doc.circuits.length] as number);
-	const fill = loadStart.slice(0, doc.circuits.length);
-	for (let k = 0; k < doc.loads.length; k++) {
-		const i = loadCircuit[k] as number;
-		if (i < 0) continue;
-		grouped[fill[i] as number] = doc.loads[k] as Load;
-		fill[i] = (fill[i] as number) + 1;
+	let grouped: Load[] = doc.loads;
+	if (!inOrder) {
+		grouped = new Array(loadStart[doc.circuits.length] as number);
+		const fill = loadStart.slice(0, doc.circuits.length);
+		for (let k = 0; k < doc.loads.length; k++) {
+			const i = loadCircuit[k] as number;
+			if (i < 0) continue;
+			grouped[fill[i] as number] = doc.loads[k] as Load;
+			fill[i] = (fill[i] as number) + 1;
+		}
 	}
 
 	// Panels children first, so a feeder circuit sees its subpanel's totals.
