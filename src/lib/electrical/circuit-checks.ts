@@ -690,7 +690,10 @@ const TOTAL = 256;
 const TOTAL_NOTE = 512;
 const AFCI_OK = 1024;
 
-const SEVERITY_INDEX: Record<Severity, number> = { ok: 0, note: 1, warning: 2, violation: 3 };
+/** Index of a severity in a count of findings: ok, note, warning, violation. */
+export function severityIndex(s: Severity): number {
+	return s === 'ok' ? 0 : s === 'note' ? 1 : s === 'warning' ? 2 : 3;
+}
 
 interface Made {
 	connectedVA: Figure | null;
@@ -933,7 +936,7 @@ export class CircuitChecks extends CircuitTexts implements CircuitResult {
 		const made = this.#made?.findings;
 		if (made) {
 			for (const f of made) {
-				const i = SEVERITY_INDEX[f.severity] ?? 3;
+				const i = severityIndex(f.severity);
 				counts[i] = (counts[i] as number) + 1;
 			}
 		} else this.#emit(null, counts);
@@ -948,7 +951,7 @@ export class CircuitChecks extends CircuitTexts implements CircuitResult {
 	): void {
 		if (out) out.push(findingOf(severity, code, text, this, rule, this.target));
 		else if (counts) {
-			const i = SEVERITY_INDEX[severity];
+			const i = severityIndex(severity);
 			counts[i] = (counts[i] as number) + 1;
 		}
 	}
@@ -1040,7 +1043,7 @@ export class CircuitChecks extends CircuitTexts implements CircuitResult {
 			if (out) for (const x of extra) out.push(x);
 			else if (counts)
 				for (const x of extra) {
-					const i = SEVERITY_INDEX[x.severity] ?? 3;
+					const i = severityIndex(x.severity);
 					counts[i] = (counts[i] as number) + 1;
 				}
 		}

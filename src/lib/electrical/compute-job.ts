@@ -1,5 +1,12 @@
 /** computeJob: every check of a job document in one pass over its records. */
-import { CircuitChecks, TEXT_NUMBERS, checkCircuit, circuitName, emptyStats } from './circuit-checks';
+import {
+	CircuitChecks,
+	TEXT_NUMBERS,
+	checkCircuit,
+	circuitName,
+	emptyStats,
+	severityIndex,
+} from './circuit-checks';
 import type {
 	CircuitContext,
 	CircuitLoadStats,
@@ -700,8 +707,7 @@ export function computeJob(doc: JobDocument): JobResult {
 	}
 	const count = (list: readonly Finding[]) => {
 		for (const f of list) {
-			const s = f.severity;
-			const i = s === 'ok' ? 0 : s === 'note' ? 1 : s === 'warning' ? 2 : 3;
+			const i = severityIndex(f.severity);
 			counts[i] = (counts[i] as number) + 1;
 		}
 	};
