@@ -1137,19 +1137,18 @@ function checkMultiwire(
 	);
 }
 
+/** A method's result; `calc` is null where the method does not apply (`reason` says why). */
 function methodResult(
 	method: MethodId,
 	title: string,
 	rule: string,
-	applicable: boolean,
 	reason: string,
-	lines: Line[],
-	total: Line | null,
+	calc: { lines: Line[]; total: Line } | null,
 	ratingA: number,
 	supply: Supply,
 	ed: Edition,
 ): MethodResult {
-	if (!applicable || total === null) {
+	if (calc === null) {
 		return {
 			method,
 			title,
@@ -1166,6 +1165,7 @@ function methodResult(
 			withinService: null,
 		};
 	}
+	const { lines, total } = calc;
 	const { amps, ampsRounded } = ampsFigures(total.value, supply, ed);
 	const next = nextStandardRatingA(ampsRounded.value);
 	const min = Math.max(MIN_SERVICE_ONE_FAMILY_A, next);
@@ -1223,129 +1223,61 @@ function serviceResult(
 		minimumCircuits: true,
 	};
 	const std = standardMethod(all, opts, supply);
-	const methods: MethodResult[] = [];
-	methods.push(
-		methodResult(
-			'standard',
-			'Standard method',
-			`NEC ${ed} Article 220 Part III`,
-			true,
-			'Always permitted.',
-			std.lines,
-			std.total,
-			svc.ratingA,
-			supply,
-			ed,
-		),
-	);
-
-	const optRule = section('optional', ed);
-	if (svc.voltageSystem === '120/240-1ph-3w') {
-		const opt = optionalMethod(all, opts);
-		methods.push(
-			methodResult(
-				'optional',
-				'Optional method',
-				optRule,
-				true,
-				'One-family dwelling on a 120/240 V 3-wire service.',
-				opt.lines,
-				opt.total,
-				svc.ratingA,
-				supply,
-				ed,
-			),
-		);
-	} else {
-		methods.push(
-			methodResult(
-				'optional',
-				'Optional method',
-				optRule,
-				false,
-				'Applies to a 120/240 V or 208Y/120 V 3-wire service; this service is three-phase 4-wire.',
-				[],
-				null,
-				svc.ratingA,
-				supply,
-				ed,
-			),
-		);
-	}
-
-	const exRule = section('existingAdded', ed);
-	if (existingDwelling) {
-		const ex = existingAddedMethod(all, added, opts);
-		methods.push(
-			methodResult(
-				'existing-added',
-				'Existing dwelling with added loads',
-				exRule,
-				true,
-				'The job records existing circuits.',
-				ex.lines,
-				ex.total,
-				svc.ratingA,
-				supply,
-				ed,
-			),
-		);
-	} else {
-		methods.push(
-			methodResult(
-				'existing-added',
-				'Existing dwelling with added loads',
-				exRule,
-				false,
-				'No existing circuits are recorded: a new dwelling.',
-				[],
-				null,
-				svc.ratingA,
-				supply,
-				ed,
-			),
-		);
-	}
-
-	const mdRule = section('measuredDemand', ed);
 	const measured = svc.existingLoad;
-	if (measured) {
-		let addedArea = 0;
+	let addedArea = 0;
+	if (measured)
 		for (const i of added.rooms.order) {
 			const room = doc.rooms[i] as Room;
 			if (roomCounts(room)) addedArea += room.areaFt2;
 		}
-		const md = measuredDemandMethod(measured.peakDemandKW, added, addedArea, ed);
-		methods.push(
-			methodResult(
-				'measured-demand',
-				'Existing load from measured demand',
-				mdRule,
-				true,
-				'12 months of maximum demand are recorded.',
-				md.lines,
-				md.total,
-				svc.ratingA,
-				supply,
-				ed,
-			),
-		);
-	} else {
-		methods.push(
-			methodResult(
-				'measured-demand',
-				'Existing load from measured demand',
-				mdRule,
-				false,
-				'No 12-month maximum-demand record is given.',
-				[],
-				null,
-				svc.ratingA,
-				supply,
-				ed,
-			),
-		);
-	}
+	const singlePhase = svc.voltageSystem === '120/240-1ph-3w';
+	const mdRule = section('measuredDemand', ed);
+	const methods: MethodResult[] = [
+		methodResult(
+			'standard',
+			'Standard method',
+			`NEC ${ed} Article 220 Part III`,
+			'Always permitted.',
+			std,
+			svc.ratingA,
+			supply,
+			ed,
+		),
+		methodResult(
+			'optional',
+			'Optional method',
+			section('optional', ed),
+			singlePhase
+				? 'One-family dwelling on a 120/240 V 3-wire service.'
+				: 'Applies to a 120/240 V or 208Y/120 V 3-wire service; this service is three-phase 4-wire.',
+			singlePhase ? optionalMethod(all, opts) : null,
+			svc.ratingA,
+			supply,
+			ed,
+		),
+		methodResult(
+			'existing-added',
+			'Existing dwelling with added loads',
+			section('existingAdded', ed),
+			existingDwelling
+				? 'The job records existing circuits.'
+				: 'No existing circuits are recorded: a new dwelling.',
+			existingDwelling ? existingAddedMethod(all, added, opts) : null,
+			svc.ratingA,
+			supply,
+			ed,
+		),
+		methodResult(
+			'measured-demand',
+			'Existing load from measured demand',
+			mdRule,
+			measured ? '12 months of maximum demand are recorded.' : 'No 12-month maximum-demand record is given.',
+			measured ? measuredDemandMethod(measured.peakDemandKW, added, addedArea, ed) : null,
+			svc.ratingA,
+			supply,
+			ed,
+		),
+	];
 
 	const findings: Finding[] = [];
 	const job = { kind: 'job', id: jobId } as const;
