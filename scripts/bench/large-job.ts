@@ -4,21 +4,18 @@ import os from 'node:os';
 import path from 'node:path';
 import { PDFDocument, StandardFonts, rgb } from 'pdf-lib';
 import sharp from 'sharp';
-import { jobDocumentSchema, type JobDocument, type JobDocumentInput } from '../../src/lib/electrical';
+import {
+	ROOM_TYPES as ALL_ROOM_TYPES,
+	jobDocumentSchema,
+	type JobDocument,
+	type JobDocumentInput,
+} from '../../src/lib/electrical';
 import type { SketchSource } from '../../src/lib/documents/types';
 
-const ROOM_TYPES = [
-	'kitchen',
-	'bathroom',
-	'bedroom',
-	'living',
-	'dining',
-	'hallway',
-	'closet',
-	'laundry',
-	'garage',
-	'basement',
-] as const;
+/** The schema's room types, less those that count for little in a remodel's rooms. */
+const ROOM_TYPES = ALL_ROOM_TYPES.filter(
+	(t) => t !== 'outdoor' && t !== 'attic' && t !== 'crawl-space' && t !== 'other',
+);
 const WORDS = [
 	'north wall',
 	'island',
