@@ -16,6 +16,7 @@ import {
 	tableAmpacity,
 } from './tables';
 import type { TemperatureC } from './tables';
+import type { RoomLookup } from './protection';
 import type { Edition, Figure, Finding, Leg, Severity, Target } from './types';
 
 /** What a circuit's loads add up to, gathered in one pass over its loads. */
@@ -346,7 +347,7 @@ export interface CircuitShared {
 	/** The job's loads grouped by circuit: a circuit's are from `loadsFrom`, `count` of them. */
 	loads: readonly Load[];
 	/** The job's rooms by id, for the AFCI and GFCI texts. */
-	rooms: ReadonlyMap<string, Room> | null;
+	rooms: RoomLookup | null;
 	/** The circuits' numbers, TEXT_NUMBERS of them each. */
 	n: Float64Array;
 	/** Message of the afci-required 'ok' finding. */
@@ -410,7 +411,7 @@ export class CircuitTexts {
 	get loads(): readonly Load[] {
 		return this.shared.loads;
 	}
-	get rooms(): ReadonlyMap<string, Room> | null {
+	get rooms(): RoomLookup | null {
 		return this.shared.rooms;
 	}
 	get afciRule(): string {

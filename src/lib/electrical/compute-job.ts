@@ -394,13 +394,9 @@ export function computeJob(doc: JobDocument): JobResult {
 	const ed = doc.codeEdition;
 	const ctx: CircuitContext = { edition: ed, terminalC: doc.terminalTemperatureC, figures: new Map() };
 	const jobId = doc.id ?? doc.name;
-	const roomsById = new Map<string, Room>();
 	const roomIds = new Map<string, number>();
-	for (let i = 0; i < doc.rooms.length; i++) {
-		const r = doc.rooms[i] as Room;
-		roomsById.set(r.id, r);
-		roomIds.set(r.id, i);
-	}
+	for (let i = 0; i < doc.rooms.length; i++) roomIds.set((doc.rooms[i] as Room).id, i);
+	const rooms = new RoomFinder(doc.rooms, roomIds);
 	const roomIndex: RoomIndex = { byId: roomIds, count: doc.rooms.length };
 
 	const work = new Map<string, PanelWork>();
@@ -542,7 +538,7 @@ export function computeJob(doc: JobDocument): JobResult {
 	const shared: CircuitShared = {
 		ed,
 		loads: grouped,
-		rooms: roomsById,
+		rooms,
 		n: new Float64Array(doc.circuits.length * TEXT_NUMBERS),
 		afciOkText,
 	};
@@ -560,7 +556,7 @@ export function computeJob(doc: JobDocument): JobResult {
 		grouped,
 		loadStart,
 		feedsPanel,
-		rooms: new RoomFinder(doc.rooms, roomIds),
+		rooms,
 		served: new Uint8Array(doc.rooms.length),
 		stats,
 		facts,
