@@ -25,7 +25,7 @@ import {
 	optionalMethod,
 	standardMethod,
 } from './dwelling';
-import type { GeneralLoadOptions, LoadBucket, RoomIndex, Supply } from './dwelling';
+import type { GeneralLoadOptions, LoadBucket, Supply } from './dwelling';
 import { fig, finding, num, q, roundTo } from './format';
 import { isContinuous, isMotor, unitVA } from './load-values';
 import { circuitVoltage, legOf, legsOf, positionsTaken, rowOf, sideOf } from './positions';
@@ -397,7 +397,7 @@ export function computeJob(doc: JobDocument): JobResult {
 	const roomIds = new Map<string, number>();
 	for (let i = 0; i < doc.rooms.length; i++) roomIds.set((doc.rooms[i] as Room).id, i);
 	const rooms = new RoomFinder(doc.rooms, roomIds);
-	const roomIndex: RoomIndex = { byId: roomIds, count: doc.rooms.length };
+	const roomCount = doc.rooms.length;
 
 	const work = new Map<string, PanelWork>();
 	const works: PanelWork[] = [];
@@ -409,7 +409,7 @@ export function computeJob(doc: JobDocument): JobResult {
 			order: NO_ORDER,
 			from: 0,
 			count: 0,
-			own: { existing: emptyBucket(roomIndex), added: emptyBucket(roomIndex) },
+			own: { existing: emptyBucket(roomCount), added: emptyBucket(roomCount) },
 			subtree: null,
 			connectedVA: 0,
 			legAmps: legsOf(p.voltageSystem).map(() => 0),
@@ -635,8 +635,8 @@ export function computeJob(doc: JobDocument): JobResult {
 	}
 
 	// Service. Only the measured-demand method reads rooms (those with added loads).
-	const all = emptyBucket(roomIndex);
-	const added = emptyBucket(roomIndex);
+	const all = emptyBucket(roomCount);
+	const added = emptyBucket(roomCount);
 	const addedRooms = doc.service.existingLoad !== null;
 	for (const w of work.values()) {
 		mergeBucket(all, w.own.existing, false);

@@ -11,12 +11,6 @@ import { section, sections } from './sections';
 import { columnApct, columnBpct, columnCkW } from './tables';
 import type { Edition, Figure, Line } from './types';
 
-/** The job's rooms: index in doc.rooms by id, and how many there are. */
-export interface RoomIndex {
-	byId: ReadonlyMap<string, number>;
-	count: number;
-}
-
 /**
  * A set of the job's rooms, kept as their indexes in doc.rooms in the order first added. A large
  * job has a few sets per panel, each of dozens of rooms: a bit per room costs less than a hash set.
@@ -25,10 +19,11 @@ export class RoomSet {
 	/** Indexes in doc.rooms, in the order first added. */
 	readonly order: number[] = [];
 	#bits: Uint32Array | null = null;
-	constructor(readonly index: RoomIndex) {}
+	/** `roomCount`: how many rooms the job has (doc.rooms.length). */
+	constructor(readonly roomCount: number) {}
 	/** Adds the room of index `i`. */
 	addIndex(i: number): void {
-		const bits = (this.#bits ??= new Uint32Array((this.index.count >>> 5) + 1));
+		const bits = (this.#bits ??= new Uint32Array((this.roomCount >>> 5) + 1));
 		const w = i >>> 5;
 		const bit = 1 << (i & 31);
 		if (((bits[w] as number) & bit) !== 0) return;
@@ -80,10 +75,10 @@ export interface LoadBucket {
 	ev120VA: number;
 }
 
-/** An empty bucket of the job whose rooms `roomIndex` indexes. */
-export function emptyBucket(roomIndex: RoomIndex): LoadBucket {
+/** An empty bucket of a job of `roomCount` rooms. */
+export function emptyBucket(roomCount: number): LoadBucket {
 	return {
-		rooms: new RoomSet(roomIndex),
+		rooms: new RoomSet(roomCount),
 		recordedLightingVA: 0,
 		smallApplianceCircuits: 0,
 		laundryCircuits: 0,
@@ -174,7 +169,7 @@ export function fastenedDemand(
 
 /** Copy of a bucket (without its rooms when `rooms` is false). */
 export function cloneBucket(b: LoadBucket, rooms = true): LoadBucket {
-	return mergeBucket(emptyBucket(b.rooms.index), b, rooms);
+	return mergeBucket(emptyBucket(b.rooms.roomCount), b, rooms);
 }
 
 /**
