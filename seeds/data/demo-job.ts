@@ -12,7 +12,7 @@ export const DEMO_JOB_EXTRAS = {
 	scopeOfWork:
 		'Kitchen remodel: eight 12 W LED recessed fixtures on a new 15 A AFCI lighting circuit. New 48 A EV charger in the garage on a new 60 A 2-pole circuit, 6 AWG copper. Bedroom 2 circuit extended with one receptacle. Review of the existing 200 A service, main panel and garage subpanel.',
 	permitNumber: '',
-	status: 'in-progress' as const,
+	status: 'draft' as const,
 };
 
 type CircuitRow = [

@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import { errors } from './errors';
 import type { CurrentUser } from './roles';
+import type { JobStatus } from './workflow/status';
 
 export type JobAccess = 'read' | 'write';
 
@@ -8,12 +9,24 @@ export interface JobRef {
 	id: string;
 	firm_id: string;
 	property_id: string | null;
+	jurisdiction_id: string | null;
+	current_revision: number;
+	status: JobStatus;
+}
+
+/** Whether the user is an inspector of the jurisdiction the job was submitted to (at least once). */
+export function inspectsJob(user: CurrentUser, job: JobRef): boolean {
+	return (
+		job.current_revision > 0 &&
+		job.jurisdiction_id !== null &&
+		user.jurisdictions.some((j) => j.id === job.jurisdiction_id)
+	);
 }
 
 /**
  * Whether a user may read or change a job: the job's firm's contractors read and write; the
- * homeowner of the job's property reads; administrators read. Inspectors reach jobs only through
- * what was submitted to their jurisdiction (not here).
+ * homeowner of the job's property reads; administrators read; inspectors read what was submitted
+ * to their jurisdiction (the review and inspection moves have their own rules, src/lib/workflow).
  */
 export function jobPermits(user: CurrentUser, job: JobRef, access: JobAccess): boolean {
 	const firmMember = user.firms.some((f) => f.id === job.firm_id);
@@ -21,7 +34,8 @@ export function jobPermits(user: CurrentUser, job: JobRef, access: JobAccess): b
 	return (
 		firmMember ||
 		(job.property_id !== null && user.propertyIds.includes(job.property_id)) ||
-		user.roles.includes('administrator')
+		user.roles.includes('administrator') ||
+		inspectsJob(user, job)
 	);
 }
 
@@ -38,7 +52,7 @@ export async function assertJobAccess(
 	const job = await knex<JobRef>('jobs')
 		.where({ id: jobId })
 		.whereNull('deleted_at')
-		.first('id', 'firm_id', 'property_id');
+		.first('id', 'firm_id', 'property_id', 'jurisdiction_id', 'current_revision', 'status');
 	if (!job || !jobPermits(user, job, 'read')) throw errors.notFound('job');
 	if (access === 'write' && !jobPermits(user, job, 'write')) {
 		throw errors.forbidden('You can read this job but not change it.');

@@ -15,7 +15,8 @@ export interface CurrentUser {
 	name: string;
 	roles: Role[];
 	firms: FirmLink[];
-	jurisdictions: { id: string; name: string }[];
+	/** Jurisdictions the user works for: as an inspector, or as its administrator (who also inspects). */
+	jurisdictions: { id: string; name: string; staffRole: 'inspector' | 'administrator' }[];
 	propertyIds: string[];
 }
 
@@ -96,5 +97,13 @@ export function canManageFirm(user: CurrentUser, firmId: string): boolean {
 	return (
 		user.roles.includes('administrator') ||
 		user.firms.some((f) => f.id === firmId && f.memberRole === 'owner')
+	);
+}
+
+/** Whether the user administers a jurisdiction's settings (its staff administrator, or a site administrator). */
+export function canManageJurisdiction(user: CurrentUser, jurisdictionId: string): boolean {
+	return (
+		user.roles.includes('administrator') ||
+		user.jurisdictions.some((j) => j.id === jurisdictionId && j.staffRole === 'administrator')
 	);
 }

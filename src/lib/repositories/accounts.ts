@@ -30,7 +30,7 @@ export async function loadCurrentUser(knex: Knex, userId: string): Promise<Curre
 			.join('jurisdictions as j', 'j.id', 'ji.jurisdiction_id')
 			.where('ji.user_id', userId)
 			.orderBy('j.name')
-			.select('j.id', 'j.name'),
+			.select('j.id', 'j.name', 'ji.staff_role as staffRole'),
 		knex('property_owners').where({ user_id: userId }).pluck('property_id'),
 		knex('site_administrators').where({ user_id: userId }).first('user_id'),
 	]);

@@ -1,7 +1,28 @@
 import type { Knex } from 'knex';
 
-export type AuditEntity = 'job' | 'room' | 'panel' | 'circuit' | 'load' | 'sketch';
-export type AuditAction = 'create' | 'update' | 'delete' | 'move' | 'import';
+export type AuditEntity =
+	| 'job'
+	| 'room'
+	| 'panel'
+	| 'circuit'
+	| 'load'
+	| 'sketch'
+	| 'status'
+	| 'revision'
+	| 'comment'
+	| 'inspection';
+export type AuditAction =
+	| 'create'
+	| 'update'
+	| 'delete'
+	| 'move'
+	| 'import'
+	| 'submit'
+	| 'transition'
+	| 'reply'
+	| 'decide'
+	| 'schedule'
+	| 'record';
 
 export interface AuditInput {
 	jobId: string;

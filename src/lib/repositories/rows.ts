@@ -29,6 +29,12 @@ export interface JobRecord {
 	terminalTemperatureC: 60 | 75 | 90;
 	floorAreaFt2: number | null;
 	existingPeakDemandKW: number | null;
+	/** The inspector who took the review, if any. */
+	assignedInspectorId: string | null;
+	/** When the latest revision was submitted (the review queue counts days waiting from it). */
+	submittedAt: string | null;
+	/** The number of the latest submitted revision; 0 before the first submission. */
+	currentRevision: number;
 	version: number;
 	createdBy: string | null;
 	createdAt: string;
@@ -88,6 +94,9 @@ export function jobFromRow(r: Row): JobRecord {
 		terminalTemperatureC: num(r.terminal_temperature_c) as JobRecord['terminalTemperatureC'],
 		floorAreaFt2: numOrNull(r.floor_area_ft2),
 		existingPeakDemandKW: numOrNull(r.existing_peak_demand_kw),
+		assignedInspectorId: (r.assigned_inspector_id as string | null) ?? null,
+		submittedAt: r.submitted_at ? iso(r.submitted_at) : null,
+		currentRevision: num(r.current_revision ?? 0),
 		version: num(r.version),
 		createdBy: (r.created_by as string | null) ?? null,
 		createdAt: iso(r.created_at),
@@ -104,8 +113,6 @@ export const JOB_FIELD_COLUMNS = {
 	jurisdictionId: 'jurisdiction_id',
 	codeEdition: 'code_edition',
 	scopeOfWork: 'scope_of_work',
-	permitNumber: 'permit_number',
-	status: 'status',
 	serviceRatingA: 'service_rating_a',
 	voltageSystem: 'voltage_system',
 	terminalTemperatureC: 'terminal_temperature_c',

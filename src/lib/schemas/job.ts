@@ -6,30 +6,11 @@ import {
 	serviceSchema,
 	voltageSystemSchema,
 } from '../electrical/schema';
+import { JOB_STATUSES } from '../workflow/status';
 import { patchOf, uuidSchema } from './common';
 
-export const JOB_STATUSES = [
-	'draft',
-	'in-progress',
-	'submitted',
-	'corrections',
-	'approved',
-	'rough-in-passed',
-	'final-passed',
-	'closed',
-] as const;
-export type JobStatus = (typeof JOB_STATUSES)[number];
-
-export const JOB_STATUS_LABELS: Record<JobStatus, string> = {
-	draft: 'Draft',
-	'in-progress': 'In progress',
-	submitted: 'Submitted for plan review',
-	corrections: 'Corrections requested',
-	approved: 'Permit approved',
-	'rough-in-passed': 'Rough-in passed',
-	'final-passed': 'Final inspection passed',
-	closed: 'Closed',
-};
+// The status is the server's: it moves only through the workflow's transitions (src/lib/workflow/status.ts).
+export { JOB_STATUSES, JOB_STATUS_LABELS, type JobStatus } from '../workflow/status';
 
 const text = (max: number, what: string) =>
 	z
@@ -54,8 +35,6 @@ export const jobCreateSchema = z.strictObject({
 	jurisdictionId: uuidSchema.nullable().default(null),
 	codeEdition: z.enum(EDITIONS, { error: 'Choose the NEC edition the AHJ has adopted: 2017, 2020 or 2023.' }),
 	scopeOfWork: text(5000, 'The scope of work').default(''),
-	permitNumber: text(60, 'The permit number').default(''),
-	status: z.enum(JOB_STATUSES, { error: `Choose a status: ${JOB_STATUSES.join(', ')}.` }).default('draft'),
 	serviceRatingA: serviceSchema.shape.ratingA,
 	voltageSystem: voltageSystemSchema,
 	terminalTemperatureC: jobSettingsSchema.shape.terminalTemperatureC,
