@@ -2,7 +2,7 @@ import type { Knex } from 'knex';
 import bcrypt from 'bcryptjs';
 import { DEMO_ACCOUNTS, DEMO_FIRM, DEMO_JURISDICTION, DEMO_PROPERTIES } from './data/demo-accounts.ts';
 
-/** Demo accounts for the invented scenario: a firm, a jurisdiction, two homes, an administrator. */
+/** Demo accounts for the invented scenario: a firm, a jurisdiction, three homes, an administrator. */
 export async function seed(knex: Knex): Promise<void> {
 	if (process.env.NODE_ENV === 'production' && process.env.AMPLEDGER_ALLOW_DEMO !== '1') {
 		throw new Error(
@@ -40,18 +40,32 @@ export async function seed(knex: Knex): Promise<void> {
 				name: DEMO_JURISDICTION.name,
 				code_edition: DEMO_JURISDICTION.codeEdition,
 				address: DEMO_JURISDICTION.address,
+				fee_base_cents: DEMO_JURISDICTION.fees.baseCents,
+				fee_per_circuit_cents: DEMO_JURISDICTION.fees.perCircuitCents,
+				fee_per_panel_cents: DEMO_JURISDICTION.fees.perPanelCents,
+				fee_service_change_cents: DEMO_JURISDICTION.fees.serviceChangeCents,
+				permit_number_pattern: DEMO_JURISDICTION.permitNumberPattern,
 			})
 			.returning('id');
-		await trx('jurisdiction_inspectors').insert({ jurisdiction_id: jurisdiction.id, user_id: ids.inspector });
+		// The demo inspector also administers the jurisdiction's settings.
+		await trx('jurisdiction_inspectors').insert({
+			jurisdiction_id: jurisdiction.id,
+			user_id: ids.inspector,
+			staff_role: 'administrator',
+		});
 		const [home1] = await trx('properties')
 			.insert({ address: DEMO_PROPERTIES.penhallow, jurisdiction_id: jurisdiction.id })
 			.returning('id');
 		const [home2] = await trx('properties')
 			.insert({ address: DEMO_PROPERTIES.calderwood, jurisdiction_id: jurisdiction.id })
 			.returning('id');
+		const [home3] = await trx('properties')
+			.insert({ address: DEMO_PROPERTIES.brindle, jurisdiction_id: jurisdiction.id })
+			.returning('id');
 		await trx('property_owners').insert([
 			{ property_id: home1.id, user_id: ids.homeowner },
 			{ property_id: home2.id, user_id: ids.homeowner2 },
+			{ property_id: home3.id, user_id: ids.homeowner3 },
 		]);
 		await trx('site_administrators').insert({ user_id: ids.admin });
 	});

@@ -5,6 +5,7 @@
 import express, { type ErrorRequestHandler, type RequestHandler } from 'express';
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
+import { mountInspectionPhotoUpload } from './inspection-photo-upload';
 import { mountSketchUpload } from './sketch-upload';
 
 const root = path.resolve(import.meta.dirname, '..');
@@ -27,6 +28,7 @@ export async function createApp() {
 
 	// Multipart uploads go through multer before the static files and Astro's handler.
 	mountSketchUpload(app);
+	mountInspectionPhotoUpload(app);
 
 	app.use(
 		express.static(path.join(distDir, 'client'), {

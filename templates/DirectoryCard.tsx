@@ -10,6 +10,7 @@ import type { DocumentData, PaperSize } from '../src/lib/documents/types';
 import type { PanelResult } from '../src/lib/electrical';
 import { COLOR, PORTRAIT, longDate, packPages, s } from './common';
 import { PANEL_CAUTION } from '../src/lib/cautions';
+import { revisionText } from '../src/lib/documents/revision';
 import { cellHeight, cellLines, GridCanvas, type GridCell, type GridRow } from './grid';
 import { panelSlots, type Slot } from './PanelSchedule';
 
@@ -171,7 +172,8 @@ export function directoryCardPages(
 							</Text>
 							<Text style={{ fontSize: 7, color: COLOR.muted, marginTop: 4 }}>
 								{data.firm.name} · licence {data.firm.licenceNumber}
-								{data.firm.phone ? ` · ${data.firm.phone}` : ''} · {longDate(data.date)} · rev {data.revision}
+								{data.firm.phone ? ` · ${data.firm.phone}` : ''} · {longDate(data.date)} ·{' '}
+								{revisionText(data.revision, data.draft)}
 							</Text>
 						</View>
 					</View>

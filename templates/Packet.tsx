@@ -4,6 +4,7 @@ import type { ReactElement } from 'react';
 import type { DocumentData, LightingLayoutSource, PaperSize } from '../src/lib/documents/types';
 import type { Figure, Line as WorksheetLine, MethodResult } from '../src/lib/electrical';
 import { printable } from '../src/lib/documents/fonts';
+import { revisionText } from '../src/lib/documents/revision';
 import {
 	COLOR,
 	Field,
@@ -310,6 +311,33 @@ function findingsSheets(data: DocumentData, size: PaperSize): ReactElement[] {
 	);
 }
 
+/** The contractor's note on each error-level finding left in the submission, for the reviewer to weigh. */
+function explainedSheets(data: DocumentData, size: PaperSize): ReactElement[] {
+	const w = contentWidth(size);
+	const cols = [Math.round(w * 0.42), w - Math.round(w * 0.42)];
+	const rows = (data.explanations ?? []).map((e) =>
+		row([
+			{
+				lines: [
+					...text(`${SEVERITY_LABEL.violation}: ${e.message}`, cols[0]!, { color: COLOR.violation }),
+					...text(`[${e.rule}] · ${e.code}`, cols[0]!, { color: COLOR.muted, size: 6.5 }),
+				],
+			},
+			{ lines: text(e.note, cols[1]!) },
+		]),
+	);
+	return tableSheets(
+		data,
+		size,
+		'Findings explained by the contractor',
+		`${rows.length} violation(s) left in this submission, each with the contractor’s note`,
+		cols,
+		headRow(['Finding', 'Contractor’s explanation']),
+		rows.map((r) => ({ kind: 'row', height: r.height, row: r })),
+		'explained',
+	);
+}
+
 // ---------------------------------------------------------------- lighting layouts
 
 const SCALES: [number, string][] = [
@@ -481,7 +509,7 @@ function coverSheets(data: DocumentData, size: PaperSize, indexPages: IndexEntry
 		['Permit number', data.job.permitNumber || 'not yet issued'],
 		['Code edition', `NEC ${data.doc.codeEdition} (NFPA 70), as adopted and amended by the AHJ`],
 		['Service', `${data.doc.service.ratingA} A, ${data.doc.service.voltageSystem}`],
-		['Date · revision', `${longDate(data.date)} · rev ${data.revision}`],
+		['Date · revision', `${longDate(data.date)} · ${revisionText(data.revision, data.draft)}`],
 	];
 	const indexBlock = (entries: IndexEntry[]) => (
 		<View style={{ border: `1pt solid ${COLOR.ink}` }}>
@@ -657,6 +685,9 @@ export function packetPlan(data: DocumentData, size: PaperSize, sketches: Sketch
 		sections.push({ title: `Panel schedule: ${p.name}`, sheets: panelSchedulePages(data, p.panelId, size) });
 	}
 	sections.push({ title: 'Circuit findings', sheets: findingsSheets(data, size) });
+	if (data.explanations?.length) {
+		sections.push({ title: 'Findings explained by the contractor', sheets: explainedSheets(data, size) });
+	}
 	data.layouts.forEach((l, i) =>
 		sections.push({
 			title: `Lighting layout: ${l.title} (${l.roomName})`,

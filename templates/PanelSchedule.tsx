@@ -5,6 +5,7 @@ import { printable, wrapText } from '../src/lib/documents/fonts';
 import { cellHeight, cellLines, GridCanvas, type GridCell, type GridRow, type GridText } from './grid';
 import type { DocumentData, PaperSize } from '../src/lib/documents/types';
 import type { Circuit, CircuitResult, Finding, PanelResult } from '../src/lib/electrical';
+import { revisionText } from '../src/lib/documents/revision';
 import {
 	COLOR,
 	Field,
@@ -352,7 +353,7 @@ function Header({
 				/>
 				<Field width="14%" label="Code edition" value={`NEC ${data.doc.codeEdition}`} />
 				<Field width="20%" label="Date" value={longDate(data.date)} />
-				<Field width="30%" label="Revision" value={`rev ${data.revision}`} />
+				<Field width="30%" label="Revision" value={revisionText(data.revision, data.draft)} />
 				<Field width="16%" label="Permit" value={data.job.permitNumber || 'not yet issued'} />
 			</View>
 		</View>

@@ -84,6 +84,7 @@ export async function benchDocumentData(dir: string): Promise<DocumentData> {
 		},
 		jurisdiction: { name: 'Quillmere County Building Division', address: '2 Civic Loop, Quillmere' },
 		revision: 12,
+		draft: false,
 		date: new Date().toISOString().slice(0, 10),
 		sketches: await benchSketches(dir),
 		layouts: layout.ok

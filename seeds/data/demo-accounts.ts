@@ -9,6 +9,8 @@ export const DEMO_JURISDICTION = {
 	name: 'Quillmere County Building Division',
 	codeEdition: '2023',
 	address: '2 Civic Loop, Quillmere',
+	fees: { baseCents: 7_500, perCircuitCents: 1_200, perPanelCents: 3_500, serviceChangeCents: 12_500 },
+	permitNumberPattern: 'QC-E{YYYY}-{SEQ:4}',
 };
 
 export const DEMO_ACCOUNTS = {
@@ -42,6 +44,12 @@ export const DEMO_ACCOUNTS = {
 		password: 'demo-homeowner2-2026',
 		role: 'homeowner',
 	},
+	homeowner3: {
+		email: 'idris.farrowdale@mail.example',
+		name: 'Idris Farrowdale',
+		password: 'demo-homeowner3-2026',
+		role: 'homeowner',
+	},
 	admin: {
 		email: 'wren.ashdown@ampledger.example',
 		name: 'Wren Ashdown',
@@ -53,4 +61,6 @@ export const DEMO_ACCOUNTS = {
 export const DEMO_PROPERTIES = {
 	penhallow: '417 Fenwick Reach Road, Quillmere',
 	calderwood: '9 Orrin Lane, Quillmere',
+	/** The third homeowner's new house, where a permit has been carried to its final inspection. */
+	brindle: '6 Brindle Copse Way, Quillmere',
 };

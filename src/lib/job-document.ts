@@ -1,5 +1,5 @@
 import { computeJob, parseJobDocument, type JobResult } from './electrical';
-import type { Circuit, JobDocument, Load, Panel, Room } from './electrical/schema';
+import type { Circuit, JobDocument, Load, Panel, Room, RuleOptions } from './electrical/schema';
 import type { CircuitRecord, JobRecord, LoadRecord, PanelRecord, RoomRecord } from './repositories/rows';
 
 /** A job with everything in it, as the API returns it. */
@@ -9,6 +9,8 @@ export interface JobTree {
 	panels: PanelRecord[];
 	circuits: CircuitRecord[];
 	loads: LoadRecord[];
+	/** The engine's rule options from the amendments of the job's jurisdiction (none when absent). */
+	ruleOptions?: RuleOptions;
 }
 
 /** The engine's room, panel, circuit or load: the record without the API's bookkeeping fields. */
@@ -87,8 +89,10 @@ export function jobDocumentFromRows(tree: JobTree): JobDocument {
 		name: job.name,
 		address: job.address,
 		codeEdition: job.codeEdition,
+		jurisdiction: job.jurisdictionName ? { name: job.jurisdictionName } : null,
 		terminalTemperatureC: job.terminalTemperatureC,
 		floorAreaFt2: job.floorAreaFt2,
+		ruleOptions: tree.ruleOptions ?? { gfciEdition: null, afciEdition: null },
 		service: {
 			ratingA: job.serviceRatingA as JobDocument['service']['ratingA'],
 			voltageSystem: job.voltageSystem,

@@ -95,11 +95,12 @@ describe('who may fetch the documents', () => {
 		}
 	});
 
-	test('the homeowner gets the schedule and card of their home but not the permit packet', async () => {
+	test('the homeowner gets the schedule and card of their home, and no packet before one is submitted', async () => {
 		const [schedule, card, packet] = endpoints();
 		await pdfOf(homeowner, schedule![1]!);
 		await pdfOf(homeowner, card![1]!);
-		expect((await homeowner.fetch(packet![1]!)).status).toBe(403);
+		// Readers other than the firm get the latest submitted revision's packet (tests/integration/submission.test.ts).
+		expect((await homeowner.fetch(packet![1]!)).status).toBe(404);
 	});
 
 	test('a panel of another job, or no such panel, is 404', async () => {
@@ -142,7 +143,9 @@ describe('the permit packet from the database', () => {
 		expect(text).toContain('licence EC-40917');
 		for (const c of example.circuits as { label: string }[]) expect(text).toContain(squash(c.label));
 		pages.forEach((p, i) =>
-			expect(p.text).toContain(`Sheet ${i + 1} of ${pages.length} · Documents test: cottage remodel`),
+			expect(p.text).toContain(
+				`Sheet ${i + 1} of ${pages.length} · Documents test: cottage remodel · rev 1 draft (not submitted)`,
+			),
 		);
 	});
 

@@ -94,7 +94,9 @@ describe('creating a job', () => {
 			'homeownerEmail',
 			/e-mail address/,
 		],
-		['an unknown status', { status: 'finished' }, 'status', /choose a status/i],
+		['a status (the workflow sets it)', { status: 'approved' }, '_', /status/],
+		['a permit number (issued on approval)', { permitNumber: 'E2026-00001' }, '_', /permitNumber/],
+		['a jurisdiction that is not an id', { jurisdictionId: 'Quillmere' }, 'jurisdictionId', /./],
 		['a negative measured peak', { existingPeakDemandKW: -3 }, 'existingPeakDemandKW', /more than 0 kW/],
 		['an unknown field', { colour: 'blue' }, '_', /colour/],
 	])('refuses %s with a message on the field and writes nothing', async (_what, change, field, message) => {
@@ -147,8 +149,10 @@ describe('creating a job', () => {
 describe('listing jobs', () => {
 	test('lists the firm’s jobs with search, status filter, sort and pages', async () => {
 		const tag = uniq();
-		const a = await createJob(owner, { name: `Alpha ${tag}`, status: 'submitted' });
+		const a = await createJob(owner, { name: `Alpha ${tag}` });
 		const b = await createJob(electrician, { name: `Beta ${tag}` });
+		// Only the workflow moves a status; set one directly to try the filter.
+		await db('jobs').where({ id: a.id }).update({ status: 'submitted' });
 		const all = await call(owner, 'GET', `/api/jobs?q=${tag}&sort=name`);
 		expect(all.status).toBe(200);
 		expect(all.body.total).toBe(2);
@@ -203,19 +207,45 @@ describe('reading, changing and deleting a job', () => {
 		const job = await createJob();
 		const res = await call(owner, 'PATCH', `/api/jobs/${job.id}`, {
 			version: 1,
-			permitNumber: 'QC-2026-0415',
-			status: 'submitted',
+			scopeOfWork: 'Add a 20 A laundry circuit',
+			homeownerName: 'Odalys Penhallow',
 		});
 		expect(res.status).toBe(200);
 		expect(res.body.job).toMatchObject({
-			permitNumber: 'QC-2026-0415',
-			status: 'submitted',
+			scopeOfWork: 'Add a 20 A laundry circuit',
+			homeownerName: 'Odalys Penhallow',
+			status: 'draft',
 			version: 2,
 			name: job.name,
 		});
 		const audit = await db('audit_log').where({ entity_id: job.id, action: 'update' }).first();
-		expect(audit.before.permitNumber).toBe('');
-		expect(audit.after.permitNumber).toBe('QC-2026-0415');
+		expect(audit.before.scopeOfWork).toBe('');
+		expect(audit.after.scopeOfWork).toBe('Add a 20 A laundry circuit');
+	});
+
+	test.each([
+		['a status', { status: 'approved' }, /status/],
+		['a permit number', { permitNumber: 'E2026-00001' }, /permitNumber/],
+		['a status beside a real change', { status: 'closed', name: 'Renamed' }, /status/],
+	])(
+		'refuses a change that sets %s (the server owns it) and writes nothing',
+		async (_what, change, message) => {
+			const job = await createJob();
+			const before = await db('jobs').where({ id: job.id }).first();
+			const res = await call<ErrorBody>(owner, 'PATCH', `/api/jobs/${job.id}`, { version: 1, ...change });
+			expect(res.status).toBe(400);
+			expect(res.body.error.fields?._?.join(' ')).toMatch(message);
+			expect(await db('jobs').where({ id: job.id }).first()).toEqual(before);
+			expect(await db('audit_log').where({ entity_id: job.id, action: 'update' })).toEqual([]);
+		},
+	);
+
+	test('sets the jurisdiction by id and answers with its name', async () => {
+		const job = await createJob();
+		const j = await db('jurisdictions').orderBy('name').first('id', 'name');
+		const res = await call(owner, 'PATCH', `/api/jobs/${job.id}`, { version: 1, jurisdictionId: j.id });
+		expect(res.status).toBe(200);
+		expect(res.body.job).toMatchObject({ jurisdictionId: j.id, jurisdictionName: j.name });
 	});
 
 	test('refuses a stale version with 409 and the current job, changing nothing', async () => {

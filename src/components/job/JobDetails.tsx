@@ -4,7 +4,7 @@ import { FormProvider, useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { api, ApiError } from '../../lib/client/api-client';
 import type { JobRecord } from '../../lib/client/job-tree';
-import { JOB_STATUS_LABELS, jobPatchSchema, type JobStatus } from '../../lib/schemas/job';
+import { jobPatchSchema } from '../../lib/schemas/job';
 import { formErrorMessage } from '../jobs/form-helpers';
 import JobFields, { JOB_FIELD_NAMES as FIELDS, VOLTAGE_LABELS } from '../jobs/JobFields';
 import StatusTag from '../jobs/StatusTag';
@@ -159,7 +159,7 @@ export default function JobDetails({ job, onSaved, onReload }: Props) {
 							current={conflict}
 							fields={[
 								['name', 'Job name'],
-								['status', 'Status', (v) => JOB_STATUS_LABELS[v as JobStatus] ?? v],
+								['jurisdictionName', 'Jurisdiction'],
 								['serviceRatingA', 'Service rating (A)'],
 								['codeEdition', 'NEC edition'],
 							]}
@@ -170,7 +170,22 @@ export default function JobDetails({ job, onSaved, onReload }: Props) {
 						/>
 					</div>
 				)}
-				<JobFields idPrefix="jd" withStatus />
+				<dl
+					className="grid gap-x-6 gap-y-2 sm:col-span-2 sm:grid-cols-2"
+					aria-label="Set by the permit workflow"
+				>
+					<div>
+						<dt className="text-xs font-semibold uppercase tracking-wide text-ink-500">Status</dt>
+						<dd>
+							<StatusTag status={job.status} />
+						</dd>
+					</div>
+					<div>
+						<dt className="text-xs font-semibold uppercase tracking-wide text-ink-500">Permit number</dt>
+						<dd className="text-ink-900">{job.permitNumber || 'Issued on approval'}</dd>
+					</div>
+				</dl>
+				<JobFields idPrefix="jd" />
 				<div className="flex gap-2 sm:col-span-2">
 					<button type="submit" className="btn-primary" disabled={isSubmitting}>
 						{isSubmitting ? 'Saving…' : 'Save the job details'}

@@ -4,6 +4,11 @@ import { engineMessageInWords } from '../../lib/client/engine-messages';
 import { computeTree, type JobTree } from '../../lib/client/job-tree';
 import { useResource } from '../../lib/client/use-resource';
 import SketchesSection from '../sketches/SketchesSection';
+import InspectionsSection from '../workflow/InspectionsSection';
+import { PERMIT_ISSUED } from '../../lib/workflow/status';
+import PermitSection from '../workflow/PermitSection';
+import ReviewComments from '../workflow/ReviewComments';
+import JobHistory from '../workflow/Timeline';
 import LoadState from '../ui/LoadState';
 import Notice from '../ui/Notice';
 import SeverityBadge from '../ui/SeverityBadge';
@@ -45,6 +50,7 @@ function Section({
 }
 
 const NAV = [
+	['permit', 'Permit'],
 	['details', 'Details'],
 	['rooms', 'Rooms'],
 	['panels', 'Panelboards'],
@@ -53,6 +59,7 @@ const NAV = [
 	['sketches', 'Sketches'],
 	['lighting', 'Lighting layout'],
 	['import-export', 'Import & export'],
+	['history', 'History'],
 ] as const;
 
 /** The job page: details, rooms, panelboards, findings, the load calculation, sketches, import and export. */
@@ -99,6 +106,16 @@ export default function JobWorkspace({ jobId, firms, created }: Props) {
 							</a>
 						))}
 					</nav>
+
+					<Section id="permit" title="Permit">
+						<PermitSection jobId={jobId} tree={t} onMoved={tree.reload} />
+					</Section>
+
+					{t.job.currentRevision > 0 && (
+						<Section id="review-comments" title="Plan review comments">
+							<ReviewComments key={`${t.job.status}|${t.job.currentRevision}`} jobId={jobId} />
+						</Section>
+					)}
 
 					<Section id="details" title="Job details">
 						<JobDetails job={t.job} onSaved={(job) => update({ job })} onReload={tree.reload} />
@@ -161,12 +178,25 @@ export default function JobWorkspace({ jobId, firms, created }: Props) {
 						)}
 					</Section>
 
+					{PERMIT_ISSUED.includes(t.job.status) && (
+						<Section id="inspections" title="Inspections">
+							<InspectionsSection key={t.job.status} jobId={jobId} mode="contractor" />
+						</Section>
+					)}
+
 					<Section id="sketches" title="Sketches">
 						<SketchesSection jobId={jobId} rooms={t.rooms} />
 					</Section>
 
 					<Section id="import-export" title="Import and export">
 						<ImportExport jobId={jobId} firms={firms} />
+					</Section>
+
+					<Section id="history" title="History">
+						<JobHistory
+							jobId={jobId}
+							refreshKey={`${t.job.status}|${t.job.currentRevision}|${t.job.updatedAt}`}
+						/>
 					</Section>
 				</div>
 			)}

@@ -1,9 +1,14 @@
+import { useEffect } from 'react';
 import { useFormContext } from 'react-hook-form';
 import type { z } from 'zod';
+import { api } from '../../lib/client/api-client';
+import { useResource } from '../../lib/client/use-resource';
 import { EDITIONS, VOLTAGE_SYSTEMS } from '../../lib/electrical/schema';
 import { STANDARD_RATINGS_A } from '../../lib/electrical/tables';
-import { JOB_STATUSES, JOB_STATUS_LABELS, type jobCreateSchema } from '../../lib/schemas/job';
-import { NumberField, optionsOf, SelectField, TextAreaField, TextField } from '../ui/fields';
+import type { JurisdictionChoice } from '../../lib/repositories/jurisdiction-choices';
+import type { jobCreateSchema } from '../../lib/schemas/job';
+import FormField, { fieldAria } from '../auth/FormField';
+import { errorOf, NumberField, optionsOf, SelectField, TextAreaField, TextField } from '../ui/fields';
 
 export const VOLTAGE_LABELS: Record<(typeof VOLTAGE_SYSTEMS)[number], string> = {
 	'120/240-1ph-3w': '120/240 V single-phase 3-wire',
@@ -19,10 +24,10 @@ export type JobFieldValues = Omit<z.input<typeof jobCreateSchema>, 'firmId'>;
 /** Names of the fields JobFields shows, for putting the server's messages on them. */
 export const JOB_FIELD_NAMES = [
 	'name',
-	'status',
 	'address',
 	'homeownerName',
 	'homeownerEmail',
+	'jurisdictionId',
 	'codeEdition',
 	'serviceRatingA',
 	'voltageSystem',
@@ -30,20 +35,34 @@ export const JOB_FIELD_NAMES = [
 	'floorAreaFt2',
 	'existingPeakDemandKW',
 	'scopeOfWork',
-	'permitNumber',
 ] as const satisfies readonly (keyof JobFieldValues)[];
 
 interface Props {
 	/** Prefix of the controls' ids, so that two forms on one page do not clash. */
 	idPrefix: string;
-	/** The status is set on an existing job; a new one starts as a draft. */
-	withStatus?: boolean;
+	/** On a new job, choosing the jurisdiction also sets the edition to the one it has adopted. */
+	editionFollowsJurisdiction?: boolean;
 }
 
-/** The job's own fields, used by the new-job form and the job details form (inside their FormProvider). */
-export default function JobFields({ idPrefix, withStatus = false }: Props) {
+/**
+ * The job's own fields, used by the new-job form and the job details form (inside their FormProvider).
+ * The status and the permit number are not here: the server sets them along the permit workflow.
+ */
+export default function JobFields({ idPrefix, editionFollowsJurisdiction = false }: Props) {
 	const form = useFormContext<JobFieldValues>();
 	const id = (name: keyof JobFieldValues) => `${idPrefix}-${name}`;
+	const choices = useResource(
+		() => api<{ jurisdictions: JurisdictionChoice[] }>('/api/jurisdictions').then((r) => r.jurisdictions),
+		'jurisdictions',
+	);
+	// The options arrive after the form's values: show the job's jurisdiction once they are there.
+	useEffect(() => {
+		if (choices.data) form.setValue('jurisdictionId', form.getValues('jurisdictionId') ?? null);
+	}, [choices.data, form]);
+	const jurisdictionError = errorOf(form, 'jurisdictionId');
+	const jurisdictionHint = choices.error
+		? `The list of jurisdictions did not load (${choices.error}).`
+		: 'The AHJ the permit is filed with; its adopted NEC edition is the job’s default.';
 	return (
 		<>
 			<TextField
@@ -53,15 +72,6 @@ export default function JobFields({ idPrefix, withStatus = false }: Props) {
 				label="Job name"
 				hint="What your crew calls it, e.g. “Kitchen remodel, Penhallow”."
 			/>
-			{withStatus && (
-				<SelectField
-					form={form}
-					name="status"
-					id={id('status')}
-					label="Status"
-					options={optionsOf(JOB_STATUSES, (s) => JOB_STATUS_LABELS[s])}
-				/>
-			)}
 			<TextField
 				form={form}
 				name="address"
@@ -77,6 +87,32 @@ export default function JobFields({ idPrefix, withStatus = false }: Props) {
 				label="Homeowner’s e-mail"
 				type="email"
 			/>
+			<FormField
+				id={id('jurisdictionId')}
+				label="Jurisdiction (AHJ)"
+				error={jurisdictionError}
+				hint={jurisdictionHint}
+			>
+				<select
+					{...form.register('jurisdictionId', {
+						setValueAs: (v: unknown) => (v === '' || v === undefined ? null : v),
+						onChange: (e: { target: { value: string } }) => {
+							if (!editionFollowsJurisdiction) return;
+							const chosen = choices.data?.find((j) => j.id === e.target.value);
+							if (chosen) form.setValue('codeEdition', chosen.codeEdition, { shouldValidate: true });
+						},
+					})}
+					{...fieldAria(id('jurisdictionId'), jurisdictionError, jurisdictionHint)}
+					className="field-input"
+				>
+					<option value="">{choices.loading ? 'Loading the jurisdictions…' : 'Not chosen yet'}</option>
+					{(choices.data ?? []).map((j) => (
+						<option key={j.id} value={j.id}>
+							{j.name} (NEC {j.codeEdition})
+						</option>
+					))}
+				</select>
+			</FormField>
 			<SelectField
 				form={form}
 				name="codeEdition"
@@ -123,7 +159,6 @@ export default function JobFields({ idPrefix, withStatus = false }: Props) {
 				hint="Only when the utility's demand record exists."
 				emptyIsNull
 			/>
-			<TextField form={form} name="permitNumber" id={id('permitNumber')} label="Permit number" />
 			<div className="sm:col-span-2">
 				<TextAreaField form={form} name="scopeOfWork" id={id('scopeOfWork')} label="Scope of work" />
 			</div>

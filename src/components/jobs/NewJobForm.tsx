@@ -13,8 +13,8 @@ import JobFields, { JOB_FIELD_NAMES } from './JobFields';
 type Input = z.input<typeof jobCreateSchema>;
 type Output = z.output<typeof jobCreateSchema>;
 
-// A new job starts as a draft: the form has no status field.
-const FIELDS = ['firmId', ...JOB_FIELD_NAMES.filter((f) => f !== 'status')];
+// A new job starts as a draft; the server owns the status and the permit number.
+const FIELDS = ['firmId', ...JOB_FIELD_NAMES];
 
 interface Props {
 	firms: { id: string; name: string }[];
@@ -39,7 +39,7 @@ export default function NewJobForm({ firms, onCreated }: Props) {
 			floorAreaFt2: null,
 			existingPeakDemandKW: null,
 			scopeOfWork: '',
-			permitNumber: '',
+			jurisdictionId: null,
 		},
 	});
 
@@ -77,7 +77,7 @@ export default function NewJobForm({ firms, onCreated }: Props) {
 						options={firms.map((f) => [f.id, f.name] as const)}
 					/>
 				)}
-				<JobFields idPrefix="job" />
+				<JobFields idPrefix="job" editionFollowsJurisdiction />
 				<div className="sm:col-span-2">
 					<button type="submit" className="btn-primary" disabled={isSubmitting}>
 						{isSubmitting ? 'Creating…' : 'Create the job'}

@@ -3,6 +3,7 @@ import { Document, renderToBuffer } from '@react-pdf/renderer';
 import { createElement, type ReactElement } from 'react';
 import { PDFDocument, rgb, type PDFFont, type PDFPage } from 'pdf-lib';
 import { embedFooterFonts, printable, registerFonts, textWidth } from './fonts';
+import { revisionText } from './revision';
 
 /** Renders react-pdf pages into one PDF (fonts from disk, nothing fetched). */
 export async function renderSheets(
@@ -23,9 +24,15 @@ export async function renderSheets(
 
 export const FOOTER_SIZE = 7.5;
 
-/** The footer line of a sheet. */
-export function sheetLabel(index: number, total: number, job: string, revision: number): string {
-	return `Sheet ${index + 1} of ${total} · ${job} · rev ${revision}`;
+/** The footer line of a sheet: "Sheet 2 of 9 · job · rev 1" (or "· rev 2 draft (not submitted)"). */
+export function sheetLabel(
+	index: number,
+	total: number,
+	job: string,
+	revision: number,
+	draft = false,
+): string {
+	return `Sheet ${index + 1} of ${total} · ${job} · ${revisionText(revision, draft)}`;
 }
 
 export type FooterFonts = { latin: PDFFont; ext: PDFFont; covers: (cp: number) => 'latin' | 'ext' };
@@ -62,13 +69,13 @@ export function drawMixed(
 }
 
 /**
- * Stamps "Sheet N of M · job · rev n" at the foot of every page, plus an optional note on the right
+ * Stamps "Sheet N of M · job · rev n" (the submission revision, or the draft of the next) at the foot of every page, plus an optional note on the right
  * (e.g. a merged sketch's caption), over whatever the page holds.
  */
 export async function stampFooters(
 	doc: PDFDocument,
 	job: string,
-	revision: number,
+	revision: { revision: number; draft: boolean },
 	notes: (string | null)[] = [],
 	embedded?: FooterFonts,
 ): Promise<void> {
@@ -87,7 +94,7 @@ export async function stampFooters(
 			thickness: 0.5,
 			color: rgb(0.7, 0.73, 0.76),
 		});
-		drawMixed(page, sheetLabel(i, pages.length, shortJob, revision), left, y, fonts);
+		drawMixed(page, sheetLabel(i, pages.length, shortJob, revision.revision, revision.draft), left, y, fonts);
 		const note = notes[i];
 		if (note) {
 			const clean = printable(note);

@@ -25,7 +25,14 @@ export async function jobTreeOr404(knex: Knex, jobId: string): Promise<JobTree> 
 export async function jobDocumentData(
 	knex: Knex,
 	tree: JobTree,
-	options: { mapUrl: string | null; withSketches?: boolean; date?: string },
+	options: {
+		mapUrl: string | null;
+		withSketches?: boolean;
+		date?: string;
+		/** The submission being made (printed "rev N"); by default the live job's draft of its next one. */
+		revision?: { revision: number; draft: boolean };
+		explanations?: DocumentData['explanations'];
+	},
 ): Promise<DocumentData> {
 	const parsed = parseJobDocument(jobDocumentFromRows(tree));
 	if (!parsed.ok) {
@@ -38,7 +45,7 @@ export async function jobDocumentData(
 	const [firm, jurisdiction, revision, sketchRows, layoutRows] = await Promise.all([
 		firmForDocuments(knex, job.firmId),
 		jurisdictionForDocuments(knex, job.jurisdictionId),
-		documentRevision(knex, job.id),
+		options.revision ?? documentRevision(knex, job.id),
 		options.withSketches ? listSketches(knex, job.id) : Promise.resolve([]),
 		options.withSketches ? listLightingLayouts(knex, job.id) : Promise.resolve([]),
 	]);
@@ -66,7 +73,9 @@ export async function jobDocumentData(
 		},
 		firm,
 		jurisdiction,
-		revision,
+		revision: revision.revision,
+		draft: revision.draft,
+		...(options.explanations?.length ? { explanations: options.explanations } : {}),
 		date: options.date ?? new Date().toISOString().slice(0, 10),
 		sketches: sketchRows.map((s) => ({
 			id: s.id,

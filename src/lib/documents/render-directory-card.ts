@@ -25,6 +25,6 @@ export async function renderDirectoryCard(
 	const sheets = await renderSheets(directoryCardPages(data, panelId, size, qr), title, data.firm.name);
 	const out = await newAssembly(title, data.firm.name);
 	await appendPdf(out, sheets);
-	await stampFooters(out, data.job.name, data.revision);
+	await stampFooters(out, data.job.name, data);
 	return out.save();
 }

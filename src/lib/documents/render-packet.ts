@@ -124,6 +124,6 @@ export async function renderPacket(data: DocumentData, size: PaperSize = 'letter
 		out.addPage(copied[i]!);
 		notes.push(null);
 	}
-	await stampFooters(out, data.job.name, data.revision, notes, fonts);
+	await stampFooters(out, data.job.name, data, notes, fonts);
 	return out.save();
 }

@@ -13,6 +13,6 @@ export async function renderPanelSchedule(
 	const sheets = await renderSheets(panelSchedulePages(data, panelId, size), title, data.firm.name);
 	const out = await newAssembly(title, data.firm.name);
 	await appendPdf(out, sheets);
-	await stampFooters(out, data.job.name, data.revision);
+	await stampFooters(out, data.job.name, data);
 	return out.save();
 }

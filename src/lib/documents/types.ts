@@ -45,6 +45,16 @@ export interface JobFacts {
 	permitType: string;
 }
 
+/** An error-level finding the contractor left in a submission, with their note on it. */
+export interface ExplainedFinding {
+	/** `code:targetKind:targetId`, stable across renders of one document. */
+	findingKey: string;
+	code: string;
+	message: string;
+	rule: string;
+	note: string;
+}
+
 /**
  * Everything a document is rendered from: plain data, no database, so templates can be tested and
  * benchmarked without a server.
@@ -55,8 +65,15 @@ export interface DocumentData {
 	job: JobFacts;
 	firm: FirmInfo;
 	jurisdiction: JurisdictionInfo | null;
-	/** Changes recorded for the job when the document was made. */
+	/**
+	 * The submission revision the document is: N for a stored submission, or the number the next
+	 * submission will get when `draft` (the live job, not submitted as it is).
+	 */
 	revision: number;
+	/** True for a document of the live job: printed "rev N draft (not submitted)". */
+	draft: boolean;
+	/** The contractor's notes on error-level findings left in a submission, printed in the packet. */
+	explanations?: ExplainedFinding[];
 	/** ISO date (YYYY-MM-DD) printed on the documents. */
 	date: string;
 	sketches: SketchSource[];

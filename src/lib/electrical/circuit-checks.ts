@@ -352,11 +352,20 @@ export interface CircuitShared {
 	n: Float64Array;
 	/** Message of the afci-required 'ok' finding. */
 	afciOkText: TextOf<CircuitTexts> | null;
+	/** Rule of the AFCI findings when a local amendment applies another edition's list; null: the job's edition. */
+	afciRule: string | null;
 }
 
 /** Shared values for a circuit checked on its own. */
 export function circuitShared(ed: Edition): CircuitShared {
-	return { ed, loads: NONE, rooms: null, n: new Float64Array(TEXT_NUMBERS), afciOkText: null };
+	return {
+		ed,
+		loads: NONE,
+		rooms: null,
+		n: new Float64Array(TEXT_NUMBERS),
+		afciOkText: null,
+		afciRule: null,
+	};
 }
 
 /** What only some circuits have: kept aside so that the common circuit stays small. */
@@ -415,7 +424,7 @@ export class CircuitTexts {
 		return this.shared.rooms;
 	}
 	get afciRule(): string {
-		return rulesFor(this.shared.ed).afci;
+		return this.shared.afciRule ?? rulesFor(this.shared.ed).afci;
 	}
 	get name(): string | null {
 		return this.rare?.name ?? null;

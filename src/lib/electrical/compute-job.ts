@@ -29,7 +29,14 @@ import type { GeneralLoadOptions, LoadBucket, Supply } from './dwelling';
 import { fig, finding, num, q, roundTo } from './format';
 import { isContinuous, isMotor, unitVA } from './load-values';
 import { circuitVoltage, legOf, legsOf, positionsTaken, rowOf, sideOf } from './positions';
-import { afciOkText, isReceptacleLoad, protectionFindings, requiredCircuitFindings } from './protection';
+import {
+	afciOkText,
+	isReceptacleLoad,
+	protectionEditions,
+	protectionFindings,
+	requiredCircuitFindings,
+	type ProtectionEditions,
+} from './protection';
 import type { RequiredCircuitFacts, RoomLookup } from './protection';
 import type { Circuit, JobDocument, Load, Panel, Room, VoltageSystem } from './schema';
 import { COMMON_PRACTICE, section } from './sections';
@@ -162,6 +169,8 @@ interface CircuitPass {
 	circuitResults: Map<string, CircuitChecks>;
 	/** Findings protectionFindings makes for the current circuit. */
 	extra: Finding[];
+	/** The GFCI and AFCI editions and rules (the job's, or a local amendment's). */
+	protection: ProtectionEditions;
 }
 
 /** The job's rooms found by id; loads mostly repeat the room of the one before, so the last is kept. */
@@ -296,7 +305,7 @@ function runCircuit(
 	const { positions, legs } = place;
 	const r = checkCircuit(c, p, stats, ctx, feeder, legs, positions, t);
 	const extra = s.extra;
-	const afciOk = protectionFindings(c, grouped, from, to, s.rooms, ed, t, r, extra);
+	const afciOk = protectionFindings(c, grouped, from, to, s.rooms, s.protection, t, r, extra);
 	if (extra.length > 0) {
 		r.addFindings(extra);
 		extra.length = 0;
@@ -535,12 +544,14 @@ export function computeJob(doc: JobDocument): JobResult {
 	};
 	// Results by index in doc.circuits; feeders also by id, for their subpanels.
 	const resultAt: (CircuitChecks | undefined)[] = new Array(doc.circuits.length);
+	const protectionEds = protectionEditions(ed, doc.ruleOptions);
 	const shared: CircuitShared = {
 		ed,
 		loads: grouped,
 		rooms,
 		n: new Float64Array(doc.circuits.length * TEXT_NUMBERS),
 		afciOkText,
+		afciRule: protectionEds.afci === ed ? null : protectionEds.afciRule,
 	};
 	// Positions and legs by first position and poles, shared by the circuits that take the same ones.
 	const placesBySystem = new Map<VoltageSystem, Map<number, { positions: number[]; legs: Leg[] }>>();
@@ -564,6 +575,7 @@ export function computeJob(doc: JobDocument): JobResult {
 		work,
 		circuitResults,
 		extra: [],
+		protection: protectionEds,
 	};
 
 	for (const panelId of postOrder) {

@@ -3,13 +3,40 @@ import type { CircuitTexts } from './circuit-checks';
 import { nameOf, rulesFor } from './circuit-checks';
 import { finding, findingOf } from './format';
 import type { TextOf } from './format';
-import type { Circuit, Load, Room, RoomType } from './schema';
+import type { Circuit, Load, Room, RoomType, RuleOptions } from './schema';
 import { section } from './sections';
 import type { Edition, Finding, Target } from './types';
 
 /** Finds a room of the job by id (a Map of the rooms will do). */
 export interface RoomLookup {
 	get(id: string): Room | undefined;
+}
+
+/** The editions whose GFCI and AFCI lists a job applies, with the rule labels its findings cite. */
+export interface ProtectionEditions {
+	gfci: Edition;
+	afci: Edition;
+	gfciRule: string;
+	afciRule: string;
+}
+
+/**
+ * The GFCI and AFCI editions of a job: its own edition unless a local amendment (the document's
+ * ruleOptions) names another; an amended list's label says so.
+ */
+export function protectionEditions(
+	edition: Edition,
+	options: RuleOptions | null | undefined,
+): ProtectionEditions {
+	const gfci = options?.gfciEdition ?? edition;
+	const afci = options?.afciEdition ?? edition;
+	const amended = (rule: string, ed: Edition) => (ed === edition ? rule : `${rule} (local amendment)`);
+	return {
+		gfci,
+		afci,
+		gfciRule: amended(rulesFor(gfci).gfci, gfci),
+		afciRule: amended(rulesFor(afci).afci, afci),
+	};
 }
 
 /** Whether a load is supplied through a receptacle outlet. */
@@ -94,11 +121,12 @@ export function protectionFindings(
 	from: number,
 	to: number,
 	roomsById: RoomLookup,
-	edition: Edition,
+	eds: ProtectionEditions,
 	t: CircuitTexts,
 	owner: { readonly target: Target },
 	out: Finding[],
 ): boolean {
+	const edition = eds.gfci;
 	if (c.poles === 3) return false;
 	// Room lists are short: arrays kept in first-seen order, as a Set would be, cost less than Sets.
 	// Most circuits and their loads name the same one room: the list is made only when they differ.
@@ -151,7 +179,7 @@ export function protectionFindings(
 			where.push(room);
 			if (n === 'required' || need === 'no') need = n;
 		}
-		const rule = rulesFor(edition).gfci;
+		const rule = eds.gfciRule;
 		if (need !== 'no') {
 			if (hasGfci(c)) {
 				t.gfciRooms = where;
@@ -169,7 +197,7 @@ export function protectionFindings(
 	}
 
 	// AFCI: 120 V, 15 and 20 A circuits (10 A from 2023) supplying outlets or devices in the listed rooms.
-	const afciRatings = edition === '2023' ? c.ratingA <= 20 : c.ratingA === 15 || c.ratingA === 20;
+	const afciRatings = eds.afci === '2023' ? c.ratingA <= 20 : c.ratingA === 15 || c.ratingA === 20;
 	if (c.poles === 1 && afciRatings) {
 		let any = false;
 		for (const id of roomIds) {
@@ -180,7 +208,7 @@ export function protectionFindings(
 			}
 		}
 		if (any) {
-			const rule = rulesFor(edition).afci;
+			const rule = eds.afciRule;
 			t.roomIds = roomIds;
 			const x = t;
 			if (c.breakerType === 'afci' || c.breakerType === 'dual-function') {

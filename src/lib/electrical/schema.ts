@@ -332,6 +332,27 @@ export type Load = z.infer<typeof loadSchema>;
 /** A load as written in a file or form, before defaults. */
 export type LoadInput = z.input<typeof loadSchema>;
 
+/**
+ * Local amendments the engine can apply: another edition's GFCI list (210.8(A)) or AFCI list
+ * (210.12) than the job's edition. null: the job's edition.
+ */
+export const ruleOptionsSchema = z
+	.strictObject(
+		{
+			gfciEdition: enumOf(EDITIONS, 'a supported code edition')
+				.nullable()
+				.default(null)
+				.describe("Edition whose GFCI list (210.8(A)) applies. null: the job's edition."),
+			afciEdition: enumOf(EDITIONS, 'a supported code edition')
+				.nullable()
+				.default(null)
+				.describe("Edition whose AFCI list (210.12) applies. null: the job's edition."),
+		},
+		says(() => 'must be an object with gfciEdition and afciEdition'),
+	)
+	.describe('Rule options from the local amendments of the AHJ.');
+export type RuleOptions = z.infer<typeof ruleOptionsSchema>;
+
 export const jobSettingsSchema = z.strictObject({
 	id: idSchema.nullable().default(null).describe('Identifier of the job, if it has one.'),
 	name: z
@@ -343,6 +364,21 @@ export const jobSettingsSchema = z.strictObject({
 		.max(300)
 		.default(''),
 	codeEdition: enumOf(EDITIONS, 'a supported code edition').describe('NEC edition adopted by the AHJ.'),
+	jurisdiction: z
+		.strictObject(
+			{
+				name: z
+					.string(says(() => 'must be text'))
+					.trim()
+					.min(1, { error: 'must not be empty' })
+					.max(200, { error: 'must be at most 200 characters' })
+					.describe('Name of the jurisdiction as the installation lists it.'),
+			},
+			says(() => 'must be an object with the name of the jurisdiction, or null'),
+		)
+		.nullable()
+		.default(null)
+		.describe('Authority having jurisdiction (AHJ) the permit is filed with. null: not chosen yet.'),
 	terminalTemperatureC: z
 		.literal(
 			[60, 75, 90],
@@ -358,6 +394,7 @@ export const jobSettingsSchema = z.strictObject({
 		.describe(
 			'Floor area for general lighting, outside dimensions, ft². null: the sum of the rooms counted.',
 		),
+	ruleOptions: ruleOptionsSchema.default({ gfciEdition: null, afciEdition: null }),
 	service: serviceSchema,
 });
 export type JobSettings = z.infer<typeof jobSettingsSchema>;

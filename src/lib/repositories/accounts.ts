@@ -152,23 +152,3 @@ export async function getAdminOverview(knex: Knex) {
 	]);
 	return { firms, jurisdictions, users };
 }
-
-/** Jobs submitted for plan review to any of the given jurisdictions, oldest first. */
-export async function getSubmittedJobs(knex: Knex, jurisdictionIds: string[]) {
-	if (!jurisdictionIds.length) return [];
-	return knex('jobs as j')
-		.join('firms as f', 'f.id', 'j.firm_id')
-		.whereIn('j.jurisdiction_id', jurisdictionIds)
-		.where('j.status', 'submitted')
-		.whereNull('j.deleted_at')
-		.orderBy('j.updated_at')
-		.select(
-			'j.id',
-			'j.jurisdiction_id as jurisdictionId',
-			'j.name',
-			'j.address',
-			'j.permit_number as permitNumber',
-			'j.updated_at as submittedAt',
-			'f.name as firmName',
-		);
-}

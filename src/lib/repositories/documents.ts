@@ -22,10 +22,16 @@ export async function jurisdictionForDocuments(
 	return row ? { name: row.name, address: row.address ?? null } : null;
 }
 
-/** The revision printed on a job's documents: the number of changes recorded for the job. */
-export async function documentRevision(knex: Knex, jobId: string): Promise<number> {
-	const [row] = (await knex('audit_log').where({ job_id: jobId }).count({ n: '*' })) as { n: string }[];
-	return Math.max(1, Number(row?.n ?? 0));
+/**
+ * The revision printed on documents of the live job: the draft of its next submission (rev 1 before
+ * the first). A submitted revision's own packet is stored with it and printed "rev N".
+ */
+export async function documentRevision(
+	knex: Knex,
+	jobId: string,
+): Promise<{ revision: number; draft: true }> {
+	const row = await knex('jobs').where({ id: jobId }).first('current_revision');
+	return { revision: Number(row?.current_revision ?? 0) + 1, draft: true };
 }
 
 /** The jobs at a property, newest change first (a homeowner's home may have had several jobs). */

@@ -38,6 +38,26 @@ function positionErrors(doc: JobDocument): string[] {
 	return out;
 }
 
+/** The jurisdiction a document names, matched by name (case and outer spaces aside); an unknown name is a 400. */
+async function jurisdictionByName(knex: Knex, name: string | null): Promise<string | null> {
+	if (name === null) return null;
+	const rows = await knex('jurisdictions')
+		.whereRaw('lower(name) = lower(?)', [name.trim()])
+		.orderBy('name')
+		.limit(2)
+		.select('id');
+	if (rows.length !== 1) {
+		const message =
+			rows.length === 0
+				? `no jurisdiction named “${name}” on this installation; choose one listed on the new-job form, or null`
+				: `more than one jurisdiction is named “${name}”; import without it and choose one on the job page`;
+		throw errors.invalid('The job document was not imported: the jurisdiction was not found.', {
+			'jurisdiction.name': [message],
+		});
+	}
+	return rows[0].id as string;
+}
+
 /**
  * Creates a job for a firm from a job document: validated as a whole first (400 with fields keyed
  * by document path), then written in one transaction with new ids, or not at all.
@@ -57,6 +77,7 @@ export async function importJob(
 		);
 	}
 	const doc = parsed.doc;
+	const jurisdictionId = await jurisdictionByName(knex, doc.jurisdiction?.name ?? null);
 	const ids = new Map<string, string>();
 	const idOf = (key: string) => {
 		let id = ids.get(key);
@@ -72,7 +93,8 @@ export async function importJob(
 			.insert({
 				firm_id: firmId,
 				created_by: actor.id,
-				property_id: await propertyForAddress(trx, doc.address, null),
+				property_id: await propertyForAddress(trx, doc.address, jurisdictionId),
+				jurisdiction_id: jurisdictionId,
 				name: doc.name,
 				address: doc.address,
 				code_edition: doc.codeEdition,

@@ -4,6 +4,7 @@ import type { JobTree } from '../job-document';
 import type { CurrentUser } from '../roles';
 import type { JobCreate, JobListQuery, JobPatch } from '../schemas/job';
 import { recordAudit } from './audit';
+import { ruleOptionsForJurisdiction } from './jurisdictions';
 import {
 	circuitFromRow,
 	JOB_COLUMNS,
@@ -241,6 +242,7 @@ export async function loadJobTree(knex: Knex, jobId: string): Promise<JobTree | 
 		panels: panels.map(panelFromRow),
 		circuits: circuitRows.map((r) => circuitFromRow(r, circuitRooms.get(r.id) ?? [])),
 		loads: loadRows.map((r) => loadFromRow(r, loadRooms.get(r.id) ?? [])),
+		ruleOptions: await ruleOptionsForJurisdiction(knex, job.jurisdictionId),
 	};
 }
 
