@@ -51,6 +51,12 @@ describe('the seeded workflow in the browser', () => {
 		await page.getByRole('link', { name: DEMO_WORKFLOW_JOBS.inReview.name }).waitFor();
 		expect(await page.getByRole('link', { name: DEMO_WORKFLOW_JOBS.closed.name }).count()).toBe(0);
 		await shot(page, 'admin-jobs-in-review');
+		await page.getByRole('link', { name: DEMO_WORKFLOW_JOBS.inReview.name }).click();
+		await page
+			.getByTestId('admin-job-comments')
+			.getByText('Give the grounding electrode conductor size')
+			.waitFor();
+		await shot(page, 'admin-job-in-review');
 
 		await page.goto('/admin/jobs?status=closed');
 		await page.getByRole('link', { name: DEMO_WORKFLOW_JOBS.closed.name }).click();

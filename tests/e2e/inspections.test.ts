@@ -17,6 +17,7 @@ let inspector: { context: BrowserContext; page: Page };
 let homeowner: { context: BrowserContext; page: Page };
 let approvedJob: string;
 let resubmittedJob: string;
+let finalPassedJob: string;
 let photo: Buffer;
 
 /** Waits for what the islands show after a request (the shared machine can be slow). */
@@ -39,6 +40,8 @@ beforeAll(async () => {
 		await submittedJob(db, owner, jurisdiction.id, { status: 'approved', address: DEMO_PROPERTIES.penhallow })
 	).id;
 	jobIds.push(approvedJob);
+	finalPassedJob = (await submittedJob(db, owner, jurisdiction.id, { status: 'final-passed' })).id;
+	jobIds.push(finalPassedJob);
 
 	// A job sent back for corrections and resubmitted with one circuit changed in answer to a comment.
 	const job = await submittedJob(db, owner, jurisdiction.id, { status: 'corrections' });
@@ -175,5 +178,42 @@ describe('inspections in the browser', () => {
 		expect(figures).toContain('+720 VA');
 		await shot(i, 'revision-changes-reviewer');
 		await changes.screenshot({ path: path.join(SCREENSHOT_DIR, 'revision-changes-panel.png') });
+	});
+
+	test('after the final inspection passed, the inspector closes the permit', async () => {
+		const i = inspector.page;
+		await i.goto(`/inspector/jobs/${finalPassedJob}`);
+		await waitForIslands(i);
+		await i.getByRole('button', { name: 'Close the permit' }).click();
+		await poll(async () => (await db('jobs').where({ id: finalPassedJob }).first('status')).status).toBe(
+			'closed',
+		);
+		await poll(() => i.getByTestId('inspections-section').textContent()).toContain('Permit status: Closed');
+	});
+
+	test('the contractor cancels a request after confirming, and may request again', async () => {
+		const jurisdiction = await db('jurisdictions').where({ name: DEMO_JURISDICTION.name }).first('id');
+		const jobId = (await submittedJob(db, owner, jurisdiction.id, { status: 'approved' })).id;
+		jobIds.push(jobId);
+		const made = await call(owner, 'POST', `/api/jobs/${jobId}/inspections`, {
+			kind: 'rough-in',
+			preferredDates: [inDays(6)],
+		});
+		expect(made.status).toBe(201);
+		const c = contractor.page;
+		await c.goto(`/contractor/jobs/${jobId}`);
+		await waitForIslands(c);
+		const section = c.locator('#inspections');
+		await section.getByRole('button', { name: 'Cancel the request' }).click();
+		const dialog = c.getByRole('dialog');
+		await poll(() => dialog.textContent()).toContain('Cancel the rough-in inspection request?');
+		await dialog.getByRole('button', { name: 'Cancel the request' }).click();
+		await poll(() => section.locator('[data-testid="inspection"]').getAttribute('data-status')).toBe(
+			'cancelled',
+		);
+		expect((await db('inspections').where({ id: made.body.inspection.id }).first('status')).status).toBe(
+			'cancelled',
+		);
+		await poll(() => section.getByRole('button', { name: 'Request the inspection' }).count()).toBe(1);
 	});
 });

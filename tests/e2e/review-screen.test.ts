@@ -76,6 +76,19 @@ describe('the plan review screen in chromium', () => {
 		expect(await inkOnCanvas(page, `[data-testid="thumbnail"]:last-of-type canvas`)).toBeGreaterThan(0);
 		expect(await page.getByTestId('submission-note').textContent()).toContain('two new branch circuits');
 		await shot(page, 'review-screen');
+
+		// Beside the packet: the revision as submitted, from its stored JSON.
+		await page.getByRole('tab', { name: 'Panels & circuits' }).click();
+		const panels = page.getByTestId('submitted-panels');
+		expect(await panels.textContent()).toContain('Kitchen counter');
+		expect(await panels.locator('tr[data-circuit]').count()).toBe(2);
+		await shot(page, 'review-screen-panels');
+		await page.getByRole('tab', { name: 'Findings' }).click();
+		await page.getByTestId('submitted-findings').waitFor();
+		await page.getByRole('tab', { name: 'Load calculation' }).click();
+		await page.getByText('Standard method').first().waitFor();
+		await shot(page, 'review-screen-load-calculation');
+		await page.getByRole('tab', { name: /Comments/ }).click();
 	});
 
 	test('moves between sheets and zooms', async () => {
@@ -146,5 +159,18 @@ describe('the plan review screen in chromium', () => {
 		await waitForIslands(page);
 		await page.getByTestId('comment').locator('[data-comment-status="addressed"]').waitFor();
 		expect(await page.getByTestId('comment').textContent()).toContain('Added 6 AWG copper GEC');
+	});
+
+	test('the reviewer resolves the comment and approves; the screen shows the permit number issued', async () => {
+		const comment = page.getByTestId('comment');
+		await comment.getByRole('button', { name: 'Resolve' }).click();
+		await comment.locator('[data-comment-status="resolved"]').waitFor();
+		await page.getByRole('button', { name: 'Approve and issue permit' }).click();
+		await page.getByTestId('permit-number').waitFor();
+		const stored = await db('jobs').where({ id: job.id }).first('status', 'permit_number');
+		expect(stored.status).toBe('approved');
+		expect(await page.getByTestId('permit-number').textContent()).toContain(stored.permit_number);
+		expect(await page.getByTestId('decision').count()).toBe(0);
+		await shot(page, 'review-screen-approved');
 	});
 });

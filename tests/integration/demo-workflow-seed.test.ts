@@ -78,6 +78,8 @@ describe('the demo seed shows the permit workflow at once', () => {
 		const page = await (await first.fetch(`/homeowner/homes/${closed.property_id}`)).text();
 		expect(page).toContain('Closed');
 		expect(page).toContain(closed.permit_number);
+		const start = await (await first.fetch('/homeowner')).text();
+		expect(start).toMatch(new RegExp(`Closed</strong>[\\s\\S]*permit ${closed.permit_number}`));
 		const second = await signedInAs('homeowner2');
 		expect(await (await second.fetch(`/homeowner/homes/${inReview.property_id}`)).text()).toContain(
 			'In plan review',

@@ -23,6 +23,7 @@ let inReview: { id: string; name: string };
 let commentId: string;
 let inspectionId: string;
 let itemId: string;
+let requestedId: string;
 const created: string[] = [];
 
 const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
@@ -35,6 +36,12 @@ beforeAll(async () => {
 		signedInAs('admin'),
 	]);
 	staff = await newJurisdictionWithInspector(db);
+	await db('jurisdictions').where({ id: staff.jurisdictionId }).update({
+		fee_base_cents: 5_000,
+		fee_per_circuit_cents: 1_000,
+		fee_per_panel_cents: 2_000,
+		fee_service_change_cents: 10_000,
+	});
 	approved = await submittedJob(db, owner, staff.jurisdictionId, {
 		status: 'rough-in-failed',
 		address: DEMO_PROPERTIES.penhallow,
@@ -73,6 +80,15 @@ beforeAll(async () => {
 		})
 		.returning('id');
 	itemId = item.id;
+	const [requested] = await db('inspections')
+		.insert({
+			job_id: approved.id,
+			kind: 'final',
+			status: 'requested',
+			preferred_dates: JSON.stringify([inDays(4)]),
+		})
+		.returning('id');
+	requestedId = requested.id;
 });
 
 afterAll(async () => {
@@ -158,11 +174,26 @@ describe('the administrator’s read-only job page', () => {
 		expect(html).not.toMatch(/<form[^>]*method="post"/i);
 	});
 
+	test('itemises the permit fee by the jurisdiction’s schedule', async () => {
+		const html = await (await admin.fetch(`/admin/jobs/${approved.id}`)).text();
+		const fee = html.slice(html.indexOf('data-testid="admin-job-fee"'));
+		// Hand: 50.00 + 2 new circuits × 10.00 + 1 panel × 20.00 + service change 100.00 = 190.00.
+		expect(fee).toMatch(/2 × \$10\.00/);
+		expect(fee).toMatch(/Total[\s\S]*\$190\.00/);
+	});
+
 	test('shows the status moves as a timeline', async () => {
 		const html = await (await admin.fetch(`/admin/jobs/${inReview.id}`)).text();
 		expect(html).toContain('data-testid="timeline"');
 		expect(html).toContain('In plan review');
 		expect(html).toContain(staff.name);
+	});
+
+	test('lists the review comments read-only', async () => {
+		const html = await (await admin.fetch(`/admin/jobs/${inReview.id}`)).text();
+		expect(html).toMatch(
+			/#1<\/strong>[\s\S]*Whole job[\s\S]*<strong>Open<\/strong>[\s\S]*Label the garage subpanel feeder\./,
+		);
 	});
 
 	test('opens the stored packet of a revision', async () => {
@@ -198,7 +229,8 @@ describe('the administrator changes nothing in the workflow', () => {
 			.select('id', 'status', 'permit_number', 'current_revision', 'assigned_inspector_id', 'version');
 		const items = await db('inspection_items').where({ id: itemId }).select('status', 'answer', 'version');
 		const insp = await db('inspections')
-			.where({ id: inspectionId })
+			.whereIn('id', [inspectionId, requestedId])
+			.orderBy('id')
 			.select('status', 'scheduled_for', 'version');
 		const comment = await db('review_comments').where({ id: commentId }).select('status', 'version');
 		return { counts, jobs, items, insp, comment };
@@ -241,12 +273,8 @@ describe('the administrator changes nothing in the workflow', () => {
 			() => `/api/jobs/${approved.id}/inspections`,
 			{ kind: 'final', preferredDates: [inDays(5)] },
 		],
-		[
-			'schedule an inspection',
-			'PATCH',
-			() => `/api/inspections/${inspectionId}`,
-			{ scheduledFor: inDays(6) },
-		],
+		['schedule an inspection', 'PATCH', () => `/api/inspections/${requestedId}`, { scheduledFor: inDays(6) }],
+		['cancel an inspection request', 'POST', () => `/api/inspections/${requestedId}/cancel`, {}],
 		['record a result', 'POST', () => `/api/inspections/${inspectionId}/result`, { result: 'pass' }],
 		[
 			'answer a correction item',

@@ -268,6 +268,59 @@ describe('requesting an inspection', () => {
 	});
 });
 
+describe('cancelling a request', () => {
+	test('the firm cancels a scheduled request; it stays on the record and the kind may be requested again', async () => {
+		const jobId = await jobAt('approved');
+		const id = await scheduled(jobId);
+		const res = await call(clients.electrician, 'POST', `/api/inspections/${id}/cancel`);
+		expect(res.status).toBe(200);
+		expect(res.body.inspection).toMatchObject({ status: 'cancelled', scheduledFor: inDays(4) });
+		expect(
+			await db('audit_log').where({ job_id: jobId, entity: 'inspection', action: 'update' }),
+		).toHaveLength(1);
+		const again = await request('owner', jobId, { kind: 'rough-in', preferredDates: [inDays(9)] });
+		expect(again.status).toBe(201);
+		const listed = await call(clients.owner, 'GET', `/api/jobs/${jobId}/inspections`);
+		expect(listed.body.inspections.map((i: any) => i.status)).toEqual(['cancelled', 'requested']);
+		// A cancelled request takes no result.
+		const result = await call(clients.inspector, 'POST', `/api/inspections/${id}/result`, { result: 'pass' });
+		expect(result.status).toBe(409);
+	});
+
+	test('an inspection with its result, or one already cancelled, cannot be cancelled', async () => {
+		const jobId = await jobAt('approved');
+		const id = await scheduled(jobId);
+		await call(clients.inspector, 'POST', `/api/inspections/${id}/result`, { result: 'pass' });
+		const before = await snapshot(jobId);
+		const res = await call(clients.owner, 'POST', `/api/inspections/${id}/cancel`);
+		expect(res.status).toBe(409);
+		expect(await snapshot(jobId)).toEqual(before);
+		const other = await jobAt('approved');
+		const second = await requested(other);
+		expect((await call(clients.owner, 'POST', `/api/inspections/${second}/cancel`)).status).toBe(200);
+		const twice = await call(clients.owner, 'POST', `/api/inspections/${second}/cancel`);
+		expect(twice.status).toBe(409);
+		expect(twice.body.error.message).toMatch(/already cancelled/);
+	});
+
+	test.each([
+		['the inspector of the jurisdiction', 'inspector', 403],
+		['the homeowner', 'homeowner', 403],
+		['an administrator', 'admin', 403],
+		['a contractor of another firm', 'otherFirm', 404],
+		['an inspector of another jurisdiction', 'otherInspector', 404],
+		['the owner of another home', 'otherHomeowner', 404],
+		['someone signed out', 'signedOut', 401],
+	] as const)('%s cannot cancel a request (%i) and it stays open', async (_n, who, status) => {
+		const jobId = await jobAt('approved');
+		const id = await requested(jobId);
+		const before = await snapshot(jobId);
+		expect((await call(clients[who], 'POST', `/api/inspections/${id}/cancel`)).status).toBe(status);
+		expect(await snapshot(jobId)).toEqual(before);
+		expect((await db('inspections').where({ id }).first('status')).status).toBe('requested');
+	});
+});
+
 describe('scheduling and recording', () => {
 	test('the inspector schedules a requested inspection and may move the date; both are audited', async () => {
 		const jobId = await jobAt('approved');

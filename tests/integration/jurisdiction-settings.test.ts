@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { hashPassword } from '../../src/lib/passwords';
 import { testDb } from '../helpers/db';
 import { HttpClient, signedInAs } from '../helpers/http';
-import { call, circuitAt, mainPanel, newJob, removeJobs, uniq } from '../helpers/jobs';
+import { call, circuitAt, loadOf, mainPanel, newJob, removeJobs, uniq } from '../helpers/jobs';
 import { newJurisdictionWithInspector, removeJurisdiction } from '../helpers/workflow';
 
 const db = testDb();
@@ -243,6 +243,52 @@ describe('local amendments reach the engine', () => {
 		expect((await exported.json()).ruleOptions).toEqual({ gfciEdition: '2017', afciEdition: '2020' });
 		const tree = await call(owner, 'GET', `/api/jobs/${job.id}/tree`);
 		expect(tree.body.ruleOptions).toEqual({ gfciEdition: '2017', afciEdition: '2020' });
+	});
+
+	test('the server’s checks of a 2023 job follow the jurisdiction’s 2017 GFCI list', async () => {
+		// NFPA 70 (NEC) 2023, 210.8(A)(5): every kitchen receptacle; NFPA 70 (NEC) 2017, 210.8(A)(6): only those
+		// serving countertops. An AFCI breaker on general kitchen receptacles: GFCI missing under 2023 only.
+		const job = (await call(owner, 'POST', '/api/jobs', newJob({ codeEdition: '2023' }))).body.job;
+		jobs.push(job.id);
+		const room = (
+			await call(owner, 'POST', `/api/jobs/${job.id}/rooms`, {
+				name: 'Kitchen',
+				type: 'kitchen',
+				areaFt2: 180,
+			})
+		).body.room;
+		const panel = (await call(owner, 'POST', `/api/jobs/${job.id}/panels`, mainPanel())).body.panel;
+		const circuit = (
+			await call(
+				owner,
+				'POST',
+				`/api/panels/${panel.id}/circuits`,
+				circuitAt(1, { roomIds: [room.id], breakerType: 'afci', label: 'Kitchen wall receptacles' }),
+			)
+		).body.circuit;
+		await call(owner, 'POST', `/api/circuits/${circuit.id}/loads`, loadOf({ roomIds: [room.id] }));
+		await db('jobs').where({ id: job.id }).update({ jurisdiction_id: staffAdmin.jurisdictionId });
+		const gfci = async () => {
+			const tree = await call(owner, 'GET', `/api/jobs/${job.id}/tree`);
+			expect(tree.body.engine.ok).toBe(true);
+			return tree.body.engine.results.findings.find(
+				(f: any) => f.code === 'gfci-required' && f.target.id === circuit.id,
+			);
+		};
+		await call(
+			staffAdmin.client,
+			'PATCH',
+			settingsUrl(),
+			await goodBody({ amendments: { gfciEdition: null, afciEdition: null } }),
+		);
+		expect(await gfci()).toMatchObject({ severity: 'violation', rule: 'NEC 2023 210.8(A)' });
+		await call(
+			staffAdmin.client,
+			'PATCH',
+			settingsUrl(),
+			await goodBody({ amendments: { gfciEdition: '2017', afciEdition: null } }),
+		);
+		expect(await gfci()).toBeUndefined();
 	});
 
 	test('a job with no jurisdiction has no amendments', async () => {

@@ -97,6 +97,8 @@ describe('writing review comments', () => {
 			body: 'Label the panel.',
 		});
 		expect(panel).toMatchObject({ targetKind: 'panel', panelId: j.panelId, targetLabel: 'Panel Main panel' });
+		// Comments are numbered within their job, whatever other jobs hold.
+		expect(panel.number).toBe(1);
 		const circuit = await commentOn(mine.client, j.id, {
 			targetKind: 'circuit',
 			circuitId: j.circuitIds[0],
@@ -107,6 +109,7 @@ describe('writing review comments', () => {
 			circuitId: j.circuitIds[0],
 			panelId: j.panelId,
 			targetLabel: 'Panel Main panel, circuit 1: Kitchen counter',
+			number: 2,
 		});
 		// Renaming the live circuit afterwards leaves the comment's label as it was.
 		await db('circuits').where({ id: j.circuitIds[0] }).update({ label: 'Renamed later' });
@@ -357,6 +360,31 @@ describe('a comment’s thread', () => {
 		expect(Object.keys(res.body.error.fields)).toContain(field);
 		expect(await counts(j.id)).toEqual(before);
 	});
+
+	test.each([
+		['reply', 'owner'],
+		['addressed', 'owner'],
+		['reply', 'inspector'],
+		['reopened', 'inspector'],
+	] as const)(
+		'once the permit is issued, refuses “%s” by the %s (409), writes nothing and says the threads are closed',
+		async (action, by) => {
+			const j = await jobInReview();
+			const c = await commentOn(mine.client, j.id);
+			if (action === 'reopened')
+				await call(mine.client, 'POST', `/api/comments/${c.id}/entries`, { action: 'resolved' });
+			await db('jobs').where({ id: j.id }).update({ status: 'approved' });
+			const before = await counts(j.id);
+			const res = await call(by === 'owner' ? owner : mine.client, 'POST', `/api/comments/${c.id}/entries`, {
+				action,
+				body: 'Too late.',
+			});
+			expect(res.status).toBe(409);
+			expect(res.body.error.current.status).toBe('approved');
+			expect(await counts(j.id)).toEqual(before);
+			expect((await call(owner, 'GET', `/api/jobs/${j.id}/comments`)).body.threadsOpen).toBe(false);
+		},
+	);
 
 	test('answers 404 for a comment id that does not exist or is no id', async () => {
 		expect(

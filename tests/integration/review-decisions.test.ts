@@ -82,7 +82,7 @@ describe('requesting corrections', () => {
 		expect(res.body.openComments).toEqual([
 			{
 				id: open.id,
-				seq: open.seq,
+				number: 1,
 				status: 'open',
 				targetLabel: 'Whole job',
 				body: 'Show the service grounding.',
@@ -145,7 +145,7 @@ describe('approving', () => {
 		const before = await state(j.id);
 		const res = await call(mine.client, 'POST', `/api/jobs/${j.id}/decision`, { decision: 'approve' });
 		expect(res.status).toBe(409);
-		expect(res.body.error.message).toContain(`#${c.seq} (Panel Main panel)`);
+		expect(res.body.error.message).toContain('#1 (Panel Main panel)');
 		expect(res.body.error.current.unresolvedComments.map((x: { id: string }) => x.id)).toEqual([c.id]);
 		expect(await state(j.id)).toEqual(before);
 	});

@@ -3,7 +3,12 @@ import { DEMO_PROPERTIES } from '../../seeds/data/demo-accounts';
 import { testDb } from '../helpers/db';
 import { HttpClient, signedInAs } from '../helpers/http';
 import { call, otherFirmOwner, removeJobs } from '../helpers/jobs';
-import { newJurisdictionWithInspector, removeJurisdiction, submittedJob } from '../helpers/workflow';
+import {
+	newJurisdictionWithInspector,
+	removeJurisdiction,
+	storeRevision,
+	submittedJob,
+} from '../helpers/workflow';
 
 const db = testDb();
 const created: string[] = [];
@@ -166,5 +171,41 @@ describe('assign to me', () => {
 			status: 'submitted',
 			assigned_inspector_id: null,
 		});
+	});
+});
+
+describe('the review screen page', () => {
+	test('shows the jurisdiction’s inspector the revision asked for, and the latest by default', async () => {
+		const j = await job(mine.jurisdictionId, { status: 'in-review', note: 'First go.' });
+		await storeRevision(db, j.id, 2, { note: 'Second go, kitchen circuit changed.' });
+		await db('jobs').where({ id: j.id }).update({ current_revision: 2 });
+		const latest = await mine.client.fetch(`/inspector/jobs/${j.id}`);
+		expect(latest.status).toBe(200);
+		const html = await latest.text();
+		expect(html).toContain('data-revision="2"');
+		expect(html).toContain('Second go, kitchen circuit changed.');
+		const first = await (await mine.client.fetch(`/inspector/jobs/${j.id}?revision=1`)).text();
+		expect(first).toContain('data-revision="1"');
+		expect(first).toContain('First go.');
+		expect((await mine.client.fetch(`/inspector/jobs/${j.id}?revision=3`)).status).toBe(404);
+	});
+
+	test.each([
+		['an inspector of another jurisdiction', () => elsewhere.client, 404],
+		['the job’s own contractor (no inspector)', () => owner, 403],
+		['the homeowner of the property', () => homeowner, 403],
+		['an administrator who is no inspector', () => admin, 403],
+	])('is refused to %s (%i)', async (_, who, status) => {
+		const j = await job(mine.jurisdictionId, { address: DEMO_PROPERTIES.penhallow });
+		const res = await who().fetch(`/inspector/jobs/${j.id}`);
+		expect(res.status).toBe(status);
+		expect(await res.text()).not.toContain(j.name);
+	});
+
+	test('sends a signed-out visitor to sign in', async () => {
+		const j = await job(mine.jurisdictionId);
+		const res = await new HttpClient().fetch(`/inspector/jobs/${j.id}`);
+		expect([302, 303]).toContain(res.status);
+		expect(res.headers.get('location')).toContain('/sign-in');
 	});
 });

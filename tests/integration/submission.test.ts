@@ -15,7 +15,7 @@ import {
 	type ErrorBody,
 } from '../helpers/jobs';
 import { readPdf, squash } from '../helpers/pdf';
-import { newJurisdictionWithInspector, removeJurisdiction } from '../helpers/workflow';
+import { newJurisdictionWithInspector, removeJurisdiction, submittedJob } from '../helpers/workflow';
 
 const db = testDb();
 const created: string[] = [];
@@ -385,6 +385,16 @@ describe('submitting a job', () => {
 		expect(await stateOf(job.id)).toEqual(before);
 	});
 
+	test('refuses the inspector of the jurisdiction, who reads a submitted job, with 403 on the check and the resubmission', async () => {
+		const job = await submittedJob(db, owner, ahj.jurisdictionId, { status: 'corrections' });
+		created.push(job.id);
+		expect((await call(ahj.client, 'GET', `/api/jobs/${job.id}`)).status).toBe(200);
+		expect((await readiness(job.id, ahj.client)).status).toBe(403);
+		const before = await stateOf(job.id);
+		expect((await submit(job.id, {}, ahj.client)).status).toBe(403);
+		expect(await stateOf(job.id)).toEqual(before);
+	});
+
 	test('refuses a second submission while the first is with the reviewer: 409 with the allowed moves', async () => {
 		const job = await readyJob();
 		expect((await submit(job.id)).status).toBe(201);
@@ -457,6 +467,24 @@ describe('revisions', () => {
 		expect(revision.document.name).toBe(job.name);
 		expect(revision.document.circuits).toHaveLength(1);
 		expect(revision.documentSha256).toBe(sha(first.document));
+	});
+
+	test('keeps the jurisdiction once submitted: moving the job to another is a 400 and writes nothing', async () => {
+		const before = await db('jobs').where({ id: job.id }).first();
+		const res = await call<ErrorBody>(owner, 'PATCH', `/api/jobs/${job.id}`, {
+			version: before.version,
+			jurisdictionId: elsewhere.jurisdictionId,
+		});
+		expect(res.status).toBe(400);
+		expect(res.body.error.fields?.jurisdictionId?.[0]).toMatch(/fixed since the first submission/);
+		expect(await db('jobs').where({ id: job.id }).first()).toEqual(before);
+		// Sending the same jurisdiction with another change is fine.
+		const same = await call(owner, 'PATCH', `/api/jobs/${job.id}`, {
+			version: before.version,
+			jurisdictionId: ahj.jurisdictionId,
+			homeownerName: 'Odalys Penhallow',
+		});
+		expect(same.status).toBe(200);
 	});
 
 	test('the database refuses to change or delete a stored revision', async () => {

@@ -185,7 +185,7 @@ export default function JobDetails({ job, onSaved, onReload }: Props) {
 						<dd className="text-ink-900">{job.permitNumber || 'Issued on approval'}</dd>
 					</div>
 				</dl>
-				<JobFields idPrefix="jd" />
+				<JobFields idPrefix="jd" jurisdictionLocked={job.currentRevision > 0} />
 				<div className="flex gap-2 sm:col-span-2">
 					<button type="submit" className="btn-primary" disabled={isSubmitting}>
 						{isSubmitting ? 'Saving…' : 'Save the job details'}

@@ -42,13 +42,19 @@ interface Props {
 	idPrefix: string;
 	/** On a new job, choosing the jurisdiction also sets the edition to the one it has adopted. */
 	editionFollowsJurisdiction?: boolean;
+	/** After the first submission the jurisdiction stays: its revisions went to it. */
+	jurisdictionLocked?: boolean;
 }
 
 /**
  * The job's own fields, used by the new-job form and the job details form (inside their FormProvider).
  * The status and the permit number are not here: the server sets them along the permit workflow.
  */
-export default function JobFields({ idPrefix, editionFollowsJurisdiction = false }: Props) {
+export default function JobFields({
+	idPrefix,
+	editionFollowsJurisdiction = false,
+	jurisdictionLocked = false,
+}: Props) {
 	const form = useFormContext<JobFieldValues>();
 	const id = (name: keyof JobFieldValues) => `${idPrefix}-${name}`;
 	const choices = useResource(
@@ -62,7 +68,9 @@ export default function JobFields({ idPrefix, editionFollowsJurisdiction = false
 	const jurisdictionError = errorOf(form, 'jurisdictionId');
 	const jurisdictionHint = choices.error
 		? `The list of jurisdictions did not load (${choices.error}).`
-		: 'The AHJ the permit is filed with; its adopted NEC edition is the job’s default.';
+		: jurisdictionLocked
+			? 'Fixed since the first submission: its revisions went to this jurisdiction.'
+			: 'The AHJ the permit is filed with; its adopted NEC edition is the job’s default.';
 	return (
 		<>
 			<TextField
@@ -104,6 +112,7 @@ export default function JobFields({ idPrefix, editionFollowsJurisdiction = false
 					})}
 					{...fieldAria(id('jurisdictionId'), jurisdictionError, jurisdictionHint)}
 					className="field-input"
+					disabled={jurisdictionLocked}
 				>
 					<option value="">{choices.loading ? 'Loading the jurisdictions…' : 'Not chosen yet'}</option>
 					{(choices.data ?? []).map((j) => (

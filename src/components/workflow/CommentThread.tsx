@@ -112,7 +112,7 @@ export default function CommentThread({ comment, side, onChanged, highlighted, o
 		>
 			<header className="flex flex-wrap items-center gap-2">
 				<h3 id={`c-${comment.id}-h`} className="font-bold text-ink-950">
-					#{comment.seq}{' '}
+					#{comment.number}{' '}
 					{onShow && comment.targetKind === 'sheet' ? (
 						<button type="button" className="underline" onClick={onShow}>
 							{comment.targetLabel}

@@ -18,6 +18,7 @@ import {
 } from '../../lib/schemas/inspection';
 import { JOB_STATUS_LABELS, type JobStatus } from '../../lib/workflow/status';
 import FormField from '../auth/FormField';
+import ConfirmDialog from '../ui/ConfirmDialog';
 import LoadState from '../ui/LoadState';
 import Notice from '../ui/Notice';
 
@@ -441,6 +442,48 @@ function ResultForm({ inspection, onDone }: { inspection: InspectionRecord; onDo
 	);
 }
 
+function CancelRequest({ inspection, onDone }: { inspection: InspectionRecord; onDone: () => void }) {
+	const [asking, setAsking] = useState(false);
+	const [busy, setBusy] = useState(false);
+	const [error, setError] = useState<string | null>(null);
+	const cancel = async () => {
+		setBusy(true);
+		setError(null);
+		try {
+			await api(`/api/inspections/${inspection.id}/cancel`, { method: 'POST' });
+			setAsking(false);
+			onDone();
+		} catch (err) {
+			setError(messageOf(err));
+			setAsking(false);
+		} finally {
+			setBusy(false);
+		}
+	};
+	return (
+		<div className="mt-3">
+			<button type="button" className="btn-quiet" onClick={() => setAsking(true)}>
+				Cancel the request
+			</button>
+			{error && <p className="field-error">{error}</p>}
+			<ConfirmDialog
+				open={asking}
+				title={`Cancel the ${INSPECTION_KIND_LABELS[inspection.kind].toLowerCase()} request?`}
+				body={
+					inspection.scheduledFor
+						? `The visit on ${dateText(inspection.scheduledFor)} is called off. You can request the inspection again.`
+						: 'The request is withdrawn. You can request the inspection again.'
+				}
+				confirmLabel="Cancel the request"
+				cancelLabel="Keep it"
+				busy={busy}
+				onConfirm={cancel}
+				onCancel={() => setAsking(false)}
+			/>
+		</div>
+	);
+}
+
 function InspectionCard({
 	inspection: i,
 	mode,
@@ -565,6 +608,8 @@ function InspectionCard({
 				</div>
 			)}
 
+			{contractor && open && <CancelRequest inspection={i} onDone={onChange} />}
+
 			{inspector && (
 				<div className="mt-3 space-y-3">
 					{open && <ScheduleForm inspection={i} onDone={onChange} />}
@@ -575,6 +620,34 @@ function InspectionCard({
 				</div>
 			)}
 		</li>
+	);
+}
+
+function ClosePermit({ jobId, onDone }: { jobId: string; onDone: () => void }) {
+	const [error, setError] = useState<string | null>(null);
+	const [busy, setBusy] = useState(false);
+	const close = async () => {
+		setBusy(true);
+		setError(null);
+		try {
+			await api(`/api/jobs/${jobId}/transitions`, { method: 'POST', body: { action: 'close' } });
+			onDone();
+		} catch (err) {
+			setError(messageOf(err));
+		} finally {
+			setBusy(false);
+		}
+	};
+	return (
+		<div className="flex flex-wrap items-center gap-3 rounded-md bg-green-50 p-3 text-sm">
+			<p className="text-ink-900">
+				The final inspection passed. Close the permit when nothing else is outstanding.
+			</p>
+			<button type="button" className="btn-primary" onClick={close} disabled={busy}>
+				{busy ? 'Closing…' : 'Close the permit'}
+			</button>
+			{error && <p className="field-error w-full">{error}</p>}
+		</div>
 	);
 }
 
@@ -599,6 +672,9 @@ export default function InspectionsSection({ jobId, mode }: Props) {
 						Permit status:{' '}
 						<span className="font-semibold text-ink-900">{JOB_STATUS_LABELS[l.jobStatus]}</span>
 					</p>
+					{mode === 'inspector' && l.sides.inspector && l.jobStatus === 'final-passed' && (
+						<ClosePermit jobId={jobId} onDone={listing.reload} />
+					)}
 					{mode === 'contractor' && l.sides.contractor && (
 						<RequestForm key={l.inspections.length} jobId={jobId} listing={l} onDone={listing.reload} />
 					)}

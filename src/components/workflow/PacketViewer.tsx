@@ -5,7 +5,7 @@ import type { PDFDocumentProxy, RenderTask } from 'pdfjs-dist/legacy/build/pdf.m
 /** A comment's pin on a sheet: a point as fractions of the page (0..1 from the left and the top). */
 export interface SheetPin {
 	id: string;
-	seq: number;
+	number: number;
 	sheet: number;
 	x: number;
 	y: number;
@@ -240,7 +240,12 @@ export default function PacketViewer({ url, onPick, pins, draft, onPinClick }: P
 						className="relative mx-auto"
 						style={size ? { width: size.width, height: size.height } : undefined}
 					>
-						<canvas ref={canvas} data-testid="packet-canvas" data-sheet={page} className="block bg-white" />
+						<canvas
+							ref={canvas}
+							data-testid="packet-canvas"
+							data-sheet={page}
+							className={size ? 'block bg-white' : 'hidden'}
+						/>
 						{size && (
 							<div
 								className={`absolute inset-0 ${onPick ? 'cursor-crosshair' : ''}`}
@@ -252,7 +257,7 @@ export default function PacketViewer({ url, onPick, pins, draft, onPinClick }: P
 									<button
 										key={p.id}
 										type="button"
-										title={`Comment #${p.seq}`}
+										title={`Comment #${p.number}`}
 										data-testid="pin"
 										data-comment={p.id}
 										onClick={(e) => {
@@ -262,7 +267,7 @@ export default function PacketViewer({ url, onPick, pins, draft, onPinClick }: P
 										className={`absolute flex h-6 min-w-6 -translate-x-1/2 -translate-y-full items-center justify-center rounded-full rounded-bl-none px-1 text-xs font-bold shadow ring-2 ring-white ${PIN_LOOK[p.status]}`}
 										style={{ left: `${p.x * 100}%`, top: `${p.y * 100}%` }}
 									>
-										{p.seq}
+										{p.number}
 									</button>
 								))}
 								{draft && draft.sheet === page && (

@@ -8,13 +8,26 @@ import CommentThread from './CommentThread';
  * The reviewer's comments on the contractor's job page, grouped by the revision they were written
  * on (latest first): the contractor answers each and marks it addressed before resubmitting.
  */
-export default function ReviewComments({ jobId }: { jobId: string }) {
-	const comments = useResource(() => api<{ items: CommentView[] }>(`/api/jobs/${jobId}/comments`), jobId);
+export default function ReviewComments({
+	jobId,
+	side = 'contractor',
+}: {
+	jobId: string;
+	/** 'reader' for those who may read the comments but not answer them (an administrator). */
+	side?: 'contractor' | 'reader';
+}) {
+	const comments = useResource(
+		() => api<{ items: CommentView[]; threadsOpen: boolean }>(`/api/jobs/${jobId}/comments`),
+		jobId,
+	);
 	const items = comments.data?.items ?? [];
 	const revisions = [...new Set(items.map((c) => c.revision))].sort((a, b) => b - a);
 	const open = items.filter((c) => c.status === 'open').length;
 	const changed = (c: CommentView) =>
-		comments.setData((prev) => ({ items: (prev?.items ?? []).map((x) => (x.id === c.id ? c : x)) }));
+		comments.setData((prev) => ({
+			threadsOpen: prev?.threadsOpen ?? false,
+			items: (prev?.items ?? []).map((x) => (x.id === c.id ? c : x)),
+		}));
 
 	return (
 		<LoadState
@@ -32,8 +45,10 @@ export default function ReviewComments({ jobId }: { jobId: string }) {
 				<div className="space-y-4" data-testid="review-comments">
 					<p className="text-sm text-ink-700">
 						{open === 0
-							? 'Every comment is answered.'
-							: `${open} comment${open === 1 ? '' : 's'} still open: answer each and mark it addressed, then resubmit.`}
+							? 'No comment is open.'
+							: side === 'contractor'
+								? `${open} comment${open === 1 ? '' : 's'} still open: answer each and mark it addressed, then resubmit.`
+								: `${open} comment${open === 1 ? '' : 's'} still open.`}
 					</p>
 					{revisions.map((n) => (
 						<section key={n} aria-label={`Comments on revision ${n}`}>
@@ -44,7 +59,12 @@ export default function ReviewComments({ jobId }: { jobId: string }) {
 								{items
 									.filter((c) => c.revision === n)
 									.map((c) => (
-										<CommentThread key={c.id} comment={c} side="contractor" onChanged={changed} />
+										<CommentThread
+											key={c.id}
+											comment={c}
+											side={comments.data?.threadsOpen ? side : 'reader'}
+											onChanged={changed}
+										/>
 									))}
 							</div>
 						</section>

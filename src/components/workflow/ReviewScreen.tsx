@@ -5,7 +5,11 @@ import type { z } from 'zod';
 import { api, messageOf } from '../../lib/client/api-client';
 import type { CommentView } from '../../lib/repositories/review-comments';
 import type { Revision, RevisionSummary } from '../../lib/repositories/revisions';
-import { reviewCommentSchema, reviewDecisionSchema } from '../../lib/schemas/review-comment';
+import {
+	reviewCommentSchema,
+	reviewDecisionSchema,
+	THREAD_OPEN_STATUSES,
+} from '../../lib/schemas/review-comment';
 import { PERMIT_ISSUED, type JobStatus } from '../../lib/workflow/status';
 import LoadCalculation from '../job/LoadCalculation';
 import { formErrorMessage } from '../jobs/form-helpers';
@@ -60,7 +64,7 @@ export default function ReviewScreen({ job, revision, revisions, comments: initi
 				.filter((c) => c.revision === revision.number && c.targetKind === 'sheet' && c.point)
 				.map((c) => ({
 					id: c.id,
-					seq: c.seq,
+					number: c.number,
 					sheet: c.sheet!,
 					x: c.point!.x,
 					y: c.point!.y,
@@ -153,8 +157,8 @@ export default function ReviewScreen({ job, revision, revisions, comments: initi
 				</section>
 			)}
 
-			<div className="grid gap-4 xl:grid-cols-[minmax(0,1fr)_26rem]">
-				<section className="panel-card" aria-label="Submitted packet">
+			<div className="grid gap-4 xl:grid-cols-[minmax(0,1fr)_32rem]">
+				<section className="panel-card" aria-label="Submitted packet" data-revision={revision.number}>
 					<div className="mb-2 flex flex-wrap items-center justify-between gap-2">
 						<h2 className="text-lg font-bold text-ink-950">
 							Packet, revision {revision.number}{' '}
@@ -246,7 +250,7 @@ export default function ReviewScreen({ job, revision, revisions, comments: initi
 										<CommentThread
 											key={c.id}
 											comment={c}
-											side="inspector"
+											side={THREAD_OPEN_STATUSES.includes(job.status) ? 'inspector' : 'reader'}
 											onChanged={changed}
 											highlighted={highlight === c.id}
 										/>

@@ -63,7 +63,6 @@ export function SubmittedPanels({
 										<th className="py-1 pr-2">Conductor</th>
 										<th className="py-1 pr-2 text-right">Load</th>
 										<th className="py-1 pr-2 text-right">V drop</th>
-										{onComment && <th className="py-1" />}
 									</tr>
 								</thead>
 								<tbody className="divide-y divide-ink-100">
@@ -82,6 +81,16 @@ export function SubmittedPanels({
 															<SeverityBadge severity={worst} compact />
 														</span>
 													)}
+													{onComment && (
+														<button
+															type="button"
+															className="ml-2 text-xs underline"
+															onClick={() => onComment({ kind: 'circuit', id: c.id })}
+															aria-label={`Comment on circuit ${c.position}: ${c.label}`}
+														>
+															Comment
+														</button>
+													)}
 												</td>
 												<td className="py-1 pr-2">
 													{c.poles}P {c.ratingA} A {c.breakerType.toUpperCase()}
@@ -96,17 +105,6 @@ export function SubmittedPanels({
 												<td className="py-1 pr-2 text-right font-mono">
 													{r ? `${r.voltageDrop.percent.value.toFixed(1)} %` : '–'}
 												</td>
-												{onComment && (
-													<td className="py-1 text-right">
-														<button
-															type="button"
-															className="text-xs underline"
-															onClick={() => onComment({ kind: 'circuit', id: c.id })}
-														>
-															Comment
-														</button>
-													</td>
-												)}
 											</tr>
 										);
 									})}

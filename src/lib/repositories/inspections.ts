@@ -285,6 +285,31 @@ export async function scheduleInspection(
 	});
 }
 
+/** The firm withdraws a request that has no result yet; the kind may then be requested again. */
+export async function cancelInspection(trx: Knex.Transaction, user: CurrentUser, id: string): Promise<void> {
+	const row = await lockInspection(trx, id);
+	if (row.status !== 'requested' && row.status !== 'scheduled') {
+		throw errors.conflict(
+			row.status === 'cancelled'
+				? 'This request is already cancelled.'
+				: 'This inspection already has its result; it cannot be cancelled.',
+			{ status: row.status },
+		);
+	}
+	await trx('inspections')
+		.where({ id })
+		.update({ status: 'cancelled', version: trx.raw('version + 1'), updated_at: trx.fn.now() });
+	await recordAudit(trx, {
+		jobId: row.job_id,
+		userId: user.id,
+		entity: 'inspection',
+		entityId: id,
+		action: 'update',
+		before: { status: row.status, scheduledFor: day(row.scheduled_for) },
+		after: { status: 'cancelled' },
+	});
+}
+
 /**
  * Records a scheduled inspection's result and moves the job (rough-in or final, passed or failed)
  * in the same transaction; a failed one opens its correction items.
@@ -357,6 +382,7 @@ export async function answerInspectionItem(
 	const later = await trx('inspections')
 		.where({ job_id: item.job_id, kind: failed.kind })
 		.where('seq', '>', failed.seq)
+		.whereNot({ status: 'cancelled' })
 		.first('id');
 	if (later) {
 		throw errors.conflict(

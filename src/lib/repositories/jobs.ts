@@ -136,6 +136,16 @@ export async function updateJob(knex: Knex, actor: Actor, id: string, patch: Job
 	await assertJurisdiction(knex, patch.jurisdictionId);
 	return inTransaction(knex, async (trx) => {
 		const before = await lockVersion(trx, 'jobs', id, patch.version, () => getJob(trx, id), 'job');
+		// Submitted revisions belong to the AHJ that received them: moving the job would hand them to another.
+		if (
+			patch.jurisdictionId !== undefined &&
+			patch.jurisdictionId !== before.jurisdictionId &&
+			before.currentRevision > 0
+		) {
+			throw errors.invalid('The jurisdiction cannot change once the job has been submitted.', {
+				jurisdictionId: ['fixed since the first submission: its revisions went to this jurisdiction'],
+			});
+		}
 		const changes: Record<string, unknown> = {};
 		for (const [field, column] of Object.entries(JOB_FIELD_COLUMNS)) {
 			const value = patch[field as keyof typeof JOB_FIELD_COLUMNS];

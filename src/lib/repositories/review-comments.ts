@@ -1,11 +1,12 @@
 import type { Knex } from 'knex';
 import type { JobRef } from '../access';
 import { errors } from '../errors';
-import type {
-	CommentAction,
-	CommentEntryInput,
-	CommentStatus,
-	ReviewCommentInput,
+import {
+	THREAD_OPEN_STATUSES,
+	type CommentAction,
+	type CommentEntryInput,
+	type CommentStatus,
+	type ReviewCommentInput,
 } from '../schemas/review-comment';
 import { UNDER_REVIEW } from '../workflow/status';
 import { recordAudit } from './audit';
@@ -21,7 +22,8 @@ export interface CommentEntryView {
 
 export interface CommentView {
 	id: string;
-	seq: number;
+	/** The comment's number within its job (1, 2, …), in the order they were written. */
+	number: number;
 	revision: number;
 	targetKind: 'sheet' | 'panel' | 'circuit' | 'job';
 	sheet: number | null;
@@ -42,9 +44,11 @@ const iso = (d: unknown) => new Date(d as string).toISOString();
 
 /** A job's review comments with their threads, in the order they were written. */
 export async function listComments(knex: Knex, jobId: string, ids?: string[]): Promise<CommentView[]> {
-	const q = knex('review_comments as c')
-		.leftJoin('users as u', 'u.id', 'c.author_id')
-		.where('c.job_id', jobId);
+	const numbered = knex('review_comments')
+		.where({ job_id: jobId })
+		.select('*', knex.raw('row_number() over (order by seq)::int as number'))
+		.as('c');
+	const q = knex.from(numbered).leftJoin('users as u', 'u.id', 'c.author_id');
 	if (ids) q.whereIn('c.id', ids);
 	const rows = await q.orderBy('c.seq').select('c.*', 'u.name as author_name');
 	if (rows.length === 0) return [];
@@ -58,7 +62,7 @@ export async function listComments(knex: Knex, jobId: string, ids?: string[]): P
 		.select('e.*', 'u.name as author_name');
 	return rows.map((r) => ({
 		id: r.id,
-		seq: Number(r.seq),
+		number: Number(r.number),
 		revision: r.revision_number,
 		targetKind: r.target_kind,
 		sheet: r.sheet ?? null,
@@ -224,6 +228,12 @@ export async function addCommentEntry(
 			.forUpdate()
 			.first('id', 'job_id', 'status');
 		if (!c) throw errors.notFound('comment');
+		const job = await trx('jobs').where({ id: c.job_id }).first('status');
+		if (!THREAD_OPEN_STATUSES.includes(job.status)) {
+			throw errors.conflict('The plan review of this job is over: its comments take no more entries.', {
+				status: job.status,
+			});
+		}
 		if (!flow.from.includes(c.status)) {
 			throw errors.conflict(
 				c.status === 'resolved'

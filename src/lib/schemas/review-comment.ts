@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { JOB_STATUSES, QUEUE_STATUSES } from '../workflow/status';
+import { JOB_STATUSES, QUEUE_STATUSES, type JobStatus } from '../workflow/status';
 import { uuidSchema } from './common';
 
 const body = (what: string) =>
@@ -64,6 +64,14 @@ export type ReviewCommentInput = z.infer<typeof reviewCommentSchema>;
 
 export const COMMENT_ACTIONS = ['reply', 'addressed', 'resolved', 'reopened'] as const;
 export type CommentAction = (typeof COMMENT_ACTIONS)[number];
+
+/** While the plan review runs, threads take answers and status changes; after the decision to approve they are closed. */
+export const THREAD_OPEN_STATUSES: readonly JobStatus[] = [
+	'submitted',
+	'in-review',
+	'corrections',
+	'resubmitted',
+];
 
 export const COMMENT_STATUSES = ['open', 'addressed', 'resolved'] as const;
 export type CommentStatus = (typeof COMMENT_STATUSES)[number];

@@ -85,7 +85,7 @@ export async function assignToMe(
 
 const short = (c: CommentView) => ({
 	id: c.id,
-	seq: c.seq,
+	number: c.number,
 	status: c.status,
 	targetLabel: c.targetLabel,
 	body: c.body.length > 200 ? `${c.body.slice(0, 199)}…` : c.body,
@@ -127,7 +127,7 @@ export async function decide(
 			if (pending.length > 0) {
 				throw errors.conflict(
 					`Resolve or reopen the comments still unresolved before approving: ${pending
-						.map((c) => `#${c.seq} (${c.targetLabel})`)
+						.map((c) => `#${c.number} (${c.targetLabel})`)
 						.join(', ')}.`,
 					{ unresolvedComments: pending.map(short) },
 				);
@@ -145,13 +145,19 @@ export async function decide(
 		await recordAudit(trx, {
 			jobId,
 			userId: user.id,
-			entity: 'revision',
+			// Filed with the comments: the history shows it as the review's decision, in words.
+			entity: 'comment',
 			entityId: revision?.id ?? jobId,
 			action: 'decide',
 			before: null,
 			after: {
 				decision: input.decision,
 				revision: job.current_revision,
+				body: permitNumber
+					? `Approved revision ${job.current_revision}; permit ${permitNumber} issued.`
+					: `Corrections requested on revision ${job.current_revision}: ${listed
+							.map((c) => `#${c.number} ${c.targetLabel}: ${c.body}`)
+							.join(' · ')}`.slice(0, 4000),
 				...(input.note ? { note: input.note } : {}),
 				...(permitNumber ? { permitNumber } : {}),
 				...(listed.length ? { openComments: listed } : {}),

@@ -4,7 +4,7 @@ import { db } from '../../../../lib/db';
 import { errors } from '../../../../lib/errors';
 import { createComment, listComments } from '../../../../lib/repositories/review-comments';
 import { requireUser } from '../../../../lib/roles';
-import { reviewCommentSchema } from '../../../../lib/schemas/review-comment';
+import { reviewCommentSchema, THREAD_OPEN_STATUSES } from '../../../../lib/schemas/review-comment';
 import { jobForReview, reviewSides } from '../../../../lib/workflow/review';
 
 /** The job's review comments with their threads: for the firm, the jurisdiction's staff and administrators. */
@@ -14,7 +14,10 @@ export const GET = route(async ({ params, locals }) => {
 	if (reviewSides(user, job).length === 0 && !user.roles.includes('administrator')) {
 		throw errors.forbidden('Review comments are between the contractor and the reviewer.');
 	}
-	return json({ items: await listComments(db(), job.id) });
+	return json({
+		items: await listComments(db(), job.id),
+		threadsOpen: THREAD_OPEN_STATUSES.includes(job.status),
+	});
 });
 
 /** A reviewer's new comment on a submitted revision. */
