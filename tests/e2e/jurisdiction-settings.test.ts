@@ -129,6 +129,9 @@ describe('the jurisdiction settings page in the browser', () => {
 			await page.getByText('Only the jurisdiction’s administrators change them.').waitFor();
 			expect(await page.getByRole('button', { name: 'Save the settings' }).count()).toBe(0);
 			expect(await page.getByLabel('Base permit fee').isDisabled()).toBe(true);
+			// The example is for anyone who reads the schedule: 80.00 + 4 × 12.50 + 2 × 35.00 + 1,250.00.
+			await page.getByLabel('New or modified circuits').fill('4');
+			await expect.poll(() => page.getByTestId('fee-total').textContent()).toBe('$1,450.00');
 			await shot(page, 'jurisdiction-settings-read-only');
 		} finally {
 			await other.close();

@@ -65,8 +65,7 @@ describe('the plan review screen in chromium', () => {
 	test('renders every sheet of the stored packet on canvas, with thumbnails, and the pages are not blank', async () => {
 		await waitForIslands(page);
 		await page.waitForFunction(
-			() =>
-				Number(document.querySelector('[data-testid="packet-viewer"]')?.getAttribute('data-rendered')) >= 1,
+			() => document.querySelector('[data-testid="packet-viewer"]')?.getAttribute('data-rendered') === 'true',
 		);
 		expect(await page.getByTestId('sheet-indicator').textContent()).toBe(`Sheet 1 of ${sheets}`);
 		expect(await page.getByTestId('thumbnail').count()).toBe(sheets);

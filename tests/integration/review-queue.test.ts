@@ -132,6 +132,17 @@ describe('assign to me', () => {
 		expect(item.assignedInspectorName).toBe(mine.name);
 	});
 
+	test('starts the review of a resubmission its reviewer already holds', async () => {
+		const j = await job(mine.jurisdictionId, { status: 'resubmitted' });
+		await db('jobs').where({ id: j.id }).update({ assigned_inspector_id: mine.userId });
+		const res = await call(mine.client, 'POST', `/api/jobs/${j.id}/assign`);
+		expect(res.status).toBe(200);
+		expect(await db('jobs').where({ id: j.id }).first('status', 'assigned_inspector_id')).toEqual({
+			status: 'in-review',
+			assigned_inspector_id: mine.userId,
+		});
+	});
+
 	test('takes over a job already in review without a second move', async () => {
 		const j = await job(mine.jurisdictionId, { status: 'in-review' });
 		const res = await call(mine.client, 'POST', `/api/jobs/${j.id}/assign`);

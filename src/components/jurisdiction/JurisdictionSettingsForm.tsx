@@ -255,79 +255,81 @@ export default function JurisdictionSettingsForm({ settings: initial, canEdit }:
 						/>
 					</div>
 				</section>
-
-				<section className="panel-card">
-					<h2 className="text-lg font-bold">Permit fees</h2>
-					<div className="mt-3 grid gap-4 sm:grid-cols-2">
-						{MONEY.map(([name, label, hint]) => (
-							<MoneyField
-								key={name}
-								control={control}
-								name={name}
-								label={label}
-								hint={hint}
-								disabled={disabled}
+			</fieldset>
+			<section className="panel-card">
+				<h2 className="text-lg font-bold">Permit fees</h2>
+				<fieldset disabled={disabled} className="mt-3 grid gap-4 sm:grid-cols-2">
+					{MONEY.map(([name, label, hint]) => (
+						<MoneyField
+							key={name}
+							control={control}
+							name={name}
+							label={label}
+							hint={hint}
+							disabled={disabled}
+						/>
+					))}
+				</fieldset>
+				{/* The example is not a setting: anyone who reads the schedule may try it. */}
+				<div className="mt-5 rounded-md border border-ink-200 bg-ink-50 p-4" data-testid="fee-example">
+					<h3 className="font-semibold">Example: what a permit would cost</h3>
+					<div className="mt-2 flex flex-wrap items-end gap-4 text-sm">
+						<label className="flex flex-col">
+							<span className="text-ink-600">New or modified circuits</span>
+							<input
+								type="number"
+								min={0}
+								max={500}
+								className="field-input w-24"
+								value={sample.circuits}
+								onChange={(e) => setSample({ ...sample, circuits: clampCount(e.target.value, 500) })}
 							/>
-						))}
+						</label>
+						<label className="flex flex-col">
+							<span className="text-ink-600">Panels</span>
+							<input
+								type="number"
+								min={0}
+								max={20}
+								className="field-input w-20"
+								value={sample.panels}
+								onChange={(e) => setSample({ ...sample, panels: clampCount(e.target.value, 20) })}
+							/>
+						</label>
+						<label className="flex items-center gap-2">
+							<input
+								type="checkbox"
+								checked={sample.serviceChange}
+								onChange={(e) => setSample({ ...sample, serviceChange: e.target.checked })}
+							/>
+							<span>The service changes</span>
+						</label>
 					</div>
-					<div className="mt-5 rounded-md border border-ink-200 bg-ink-50 p-4" data-testid="fee-example">
-						<h3 className="font-semibold">Example: what a permit would cost</h3>
-						<div className="mt-2 flex flex-wrap items-end gap-4 text-sm">
-							<label className="flex flex-col">
-								<span className="text-ink-600">New or modified circuits</span>
-								<input
-									type="number"
-									min={0}
-									max={500}
-									className="field-input w-24"
-									value={sample.circuits}
-									onChange={(e) => setSample({ ...sample, circuits: clampCount(e.target.value, 500) })}
-								/>
-							</label>
-							<label className="flex flex-col">
-								<span className="text-ink-600">Panels</span>
-								<input
-									type="number"
-									min={0}
-									max={20}
-									className="field-input w-20"
-									value={sample.panels}
-									onChange={(e) => setSample({ ...sample, panels: clampCount(e.target.value, 20) })}
-								/>
-							</label>
-							<label className="flex items-center gap-2">
-								<input
-									type="checkbox"
-									checked={sample.serviceChange}
-									onChange={(e) => setSample({ ...sample, serviceChange: e.target.checked })}
-								/>
-								<span>The service changes</span>
-							</label>
-						</div>
-						<table className="mt-3 w-full max-w-lg text-sm">
-							<tbody>
-								{fee.lines.map((l) => (
-									<tr key={l.key} className="border-b border-ink-100">
-										<td className="py-1">{l.label}</td>
-										<td className="py-1 text-right text-ink-600">
-											{l.quantity} × ${formatCents(l.unitCents)}
-										</td>
-										<td className="py-1 text-right font-semibold">${formatCents(l.amountCents)}</td>
-									</tr>
-								))}
-								<tr>
-									<td className="py-1 font-bold" colSpan={2}>
-										Total
+					<table className="mt-3 w-full max-w-lg text-sm">
+						<tbody>
+							{fee.lines.map((l) => (
+								<tr key={l.key} className="border-b border-ink-100">
+									<td className="py-1">{l.label}</td>
+									<td className="py-1 text-right text-ink-600">
+										{l.quantity} × ${formatCents(l.unitCents)}
 									</td>
-									<td className="py-1 text-right font-bold" data-testid="fee-total">
-										${formatCents(fee.totalCents)}
-									</td>
+									<td className="py-1 text-right font-semibold">${formatCents(l.amountCents)}</td>
 								</tr>
-							</tbody>
-						</table>
-					</div>
-				</section>
+							))}
+							<tr>
+								<td className="py-1 font-bold" colSpan={2}>
+									Total
+								</td>
+								<td className="py-1 text-right font-bold" data-testid="fee-total">
+									${formatCents(fee.totalCents)}
+								</td>
+							</tr>
+						</tbody>
+					</table>
+				</div>
+			</section>
 
+			<fieldset disabled={disabled} className="space-y-6">
 				<section className="panel-card">
 					<h2 className="text-lg font-bold">Documents required in a packet</h2>
 					<p className="mt-1 text-sm text-ink-600">

@@ -152,7 +152,11 @@ export default function PacketViewer({ url, onPick, pins, draft, onPinClick }: P
 	const onSheet = pins.filter((p) => p.sheet === page);
 
 	return (
-		<div className="flex min-h-[32rem] gap-3" data-testid="packet-viewer" data-rendered={rendered}>
+		<div
+			className="flex min-h-[32rem] gap-3"
+			data-testid="packet-viewer"
+			data-rendered={rendered > 0 ? 'true' : 'false'}
+		>
 			<ol
 				aria-label="Sheets of the packet"
 				className="hidden max-h-[80vh] w-[7.5rem] shrink-0 space-y-2 overflow-y-auto pr-1 md:block"

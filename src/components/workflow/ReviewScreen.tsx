@@ -333,7 +333,11 @@ function AssignButton({ job, userId }: { job: ReviewJob; userId: string }) {
 					}
 				}}
 			>
-				{waiting ? 'Assign to me and start review' : 'Assign to me'}
+				{waiting
+					? job.assignedInspectorId === userId
+						? 'Start review'
+						: 'Assign to me and start review'
+					: 'Assign to me'}
 			</button>
 			{error && <p className="field-error">{error}</p>}
 		</div>
