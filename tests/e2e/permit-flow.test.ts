@@ -82,7 +82,7 @@ describe('a permit from submission to final inspection, in three browsers', () =
 		await c.getByTestId('readiness').waitFor();
 		await c.getByRole('button', { name: 'Submit for review' }).click();
 		await statusBecomes('submitted');
-		await c.getByTestId('revisions-list').getByText('rev 1').waitFor();
+		await c.getByTestId('revisions-list').getByText('rev 1', { exact: true }).waitFor();
 		await shot(c, 'flow-1-contractor-submitted');
 	});
 
@@ -91,9 +91,11 @@ describe('a permit from submission to final inspection, in three browsers', () =
 		await waitForIslands(i);
 		const row = i.locator('tr, li').filter({ hasText: jobName }).first();
 		await row.waitFor();
+		// Taking the job opens its review screen.
 		await row.getByTestId('assign').click();
+		await i.waitForURL(`**/inspector/jobs/${jobId}`);
+		await waitForIslands(i);
 		await statusBecomes('in-review');
-		await openReview();
 		// The packet is drawn on canvas by pdfjs-dist, so it shows in headless chromium too.
 		await i.locator('[data-testid="packet-viewer"][data-rendered="true"]').waitFor({ timeout: 30_000 });
 		const inked = await i.getByTestId('packet-canvas').evaluate((el) => {
@@ -108,7 +110,9 @@ describe('a permit from submission to final inspection, in three browsers', () =
 		const overlay = i.getByTestId('sheet-overlay');
 		const box = (await overlay.boundingBox())!;
 		await overlay.click({ position: { x: box.width * 0.5, y: box.height * 0.3 } });
-		await i.getByLabel('Comment', { exact: true }).fill('Show the grounding electrode conductor size on this sheet (NEC 250.66).');
+		await i
+			.getByLabel('Comment', { exact: true })
+			.fill('Show the grounding electrode conductor size on this sheet (NEC 250.66).');
 		await i.getByRole('button', { name: 'Add comment' }).click();
 		await i.getByTestId('pin').first().waitFor();
 		await shot(i, 'flow-2-inspector-pinned-comment');
@@ -127,11 +131,13 @@ describe('a permit from submission to final inspection, in three browsers', () =
 		await openJobPage();
 		const thread = c.getByTestId('comment').first();
 		await thread.waitFor();
-		await thread.getByRole('textbox').fill('Added: 4 AWG copper GEC to the rod, noted on the load calculation sheet.');
+		await thread
+			.getByRole('textbox')
+			.fill('Added: 4 AWG copper GEC to the rod, noted on the load calculation sheet.');
 		await thread.getByRole('button', { name: 'Mark addressed' }).click();
-		await expect.poll(async () => (await db('review_comments').where({ job_id: jobId }).first()).status).toBe(
-			'addressed',
-		);
+		await expect
+			.poll(async () => (await db('review_comments').where({ job_id: jobId }).first()).status)
+			.toBe('addressed');
 		// A change the reviewer will see in the comparison: one circuit's label.
 		const owner = await signedInAs('owner');
 		const tree = await owner.json<{ circuits: { id: string; label: string; version: number }[] }>(
@@ -146,7 +152,7 @@ describe('a permit from submission to final inspection, in three browsers', () =
 		await openJobPage();
 		await c.getByRole('button', { name: 'Resubmit for review' }).click();
 		await statusBecomes('resubmitted');
-		await c.getByTestId('revisions-list').getByText('rev 2').waitFor();
+		await c.getByTestId('revisions-list').getByText('rev 2', { exact: true }).waitFor();
 		await shot(c, 'flow-3-contractor-resubmitted');
 	});
 
@@ -154,18 +160,26 @@ describe('a permit from submission to final inspection, in three browsers', () =
 		await i.goto('/inspector');
 		await waitForIslands(i);
 		const row = i.locator('tr, li').filter({ hasText: jobName }).first();
+		// Taking the job opens its review screen.
 		await row.getByTestId('assign').click();
+		await i.waitForURL(`**/inspector/jobs/${jobId}`);
+		await waitForIslands(i);
 		await statusBecomes('in-review');
-		await openReview();
+		await i.getByRole('tab', { name: 'Changes since rev 1' }).click();
 		await i.getByText('(GEC noted)').first().waitFor();
 		await shot(i, 'flow-4-inspector-changes');
+		await i.getByRole('tab', { name: /^Comments/ }).click();
 		const thread = i.getByTestId('comment').first();
 		await thread.getByRole('button', { name: 'Resolve' }).click();
-		await expect.poll(async () => (await db('review_comments').where({ job_id: jobId }).first()).status).toBe(
-			'resolved',
-		);
-		await openReview();
-		await i.getByRole('button', { name: 'Approve and issue permit' }).click();
+		await expect
+			.poll(async () => (await db('review_comments').where({ job_id: jobId }).first()).status)
+			.toBe('resolved');
+		const approve = i.getByRole('button', { name: 'Approve and issue permit' });
+		await expect.poll(() => approve.isEnabled(), { timeout: 15_000 }).toBe(true);
+		// The review screen reloads itself after the decision.
+		const reloaded = i.waitForEvent('load');
+		await approve.click();
+		await reloaded;
 		await statusBecomes('approved');
 		const job = await db('jobs').where({ id: jobId }).first('permit_number');
 		expect(job.permit_number).toMatch(/\d/);
@@ -209,7 +223,8 @@ describe('a permit from submission to final inspection, in three browsers', () =
 		const property = await db('jobs').where({ id: jobId }).first('property_id');
 		await h.goto(`/homeowner/homes/${property.property_id}`);
 		await waitForIslands(h);
-		const page = (await h.textContent('body')) ?? '';
+		await h.getByText('final inspection: work as on the approved plans.').waitFor();
+		const page = await h.locator('main').innerText();
 		expect(page).toContain('Final inspection passed');
 		expect(page).toContain('rough-in inspection: work as on the approved plans.');
 		expect(page).toContain('final inspection: work as on the approved plans.');
