@@ -85,7 +85,9 @@ export async function up(knex: Knex): Promise<void> {
 	// Jobs: the status is the server's, moved only along the workflow's transitions.
 	await knex.raw('ALTER TABLE jobs DROP CONSTRAINT IF EXISTS jobs_status_check');
 	await knex('jobs').where({ status: 'in-progress' }).update({ status: 'draft' });
-	await knex.raw(`ALTER TABLE jobs ADD CONSTRAINT jobs_status_check CHECK (status IN (${list(NEW_STATUSES)}))`);
+	await knex.raw(
+		`ALTER TABLE jobs ADD CONSTRAINT jobs_status_check CHECK (status IN (${list(NEW_STATUSES)}))`,
+	);
 	await knex.schema.alterTable('jobs', (t) => {
 		t.uuid('assigned_inspector_id').nullable().references('users.id').onDelete('SET NULL');
 		t.timestamp('submitted_at', { useTz: true }).nullable();
@@ -300,11 +302,16 @@ export async function down(knex: Knex): Promise<void> {
 		'final-failed': 'rough-in-passed',
 		withdrawn: 'draft',
 	};
-	for (const [from, to] of Object.entries(back)) await knex('jobs').where({ status: from }).update({ status: to });
-	await knex.raw(`ALTER TABLE jobs ADD CONSTRAINT jobs_status_check CHECK (status IN (${list(OLD_STATUSES)}))`);
+	for (const [from, to] of Object.entries(back))
+		await knex('jobs').where({ status: from }).update({ status: to });
+	await knex.raw(
+		`ALTER TABLE jobs ADD CONSTRAINT jobs_status_check CHECK (status IN (${list(OLD_STATUSES)}))`,
+	);
 
 	await knex.schema.dropTableIfExists('permit_counters');
-	await knex.raw('ALTER TABLE jurisdiction_inspectors DROP CONSTRAINT IF EXISTS jurisdiction_staff_role_check');
+	await knex.raw(
+		'ALTER TABLE jurisdiction_inspectors DROP CONSTRAINT IF EXISTS jurisdiction_staff_role_check',
+	);
 	await knex.schema.alterTable('jurisdiction_inspectors', (t) => {
 		t.dropColumn('staff_role');
 	});

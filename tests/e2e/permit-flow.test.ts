@@ -214,6 +214,10 @@ describe('a permit from submission to final inspection, in three browsers', () =
 			await record.getByLabel('Notes').fill(`${kind} inspection: work as on the approved plans.`);
 			await record.getByRole('button', { name: 'Record the result' }).click();
 			await statusBecomes(passed);
+			// The screen's own status follows the result without a reload.
+			await expect
+				.poll(() => i.getByTestId('review-status').innerText())
+				.toContain(kind === 'final' ? 'Final inspection passed' : 'Rough-in passed');
 		}
 		await openReview();
 		await shot(i, 'flow-5-inspector-final-passed');

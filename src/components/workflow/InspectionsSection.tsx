@@ -1,4 +1,4 @@
-import { useRef, useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { api, firstFieldMessages, messageOf } from '../../lib/client/api-client';
 import { useResource } from '../../lib/client/use-resource';
 import { fieldErrors } from '../../lib/errors';
@@ -33,6 +33,8 @@ interface Props {
 	jobId: string;
 	/** Who looks: the firm (requests, answers items), the inspector (schedules, records), or a reader. */
 	mode: 'contractor' | 'inspector' | 'readonly';
+	/** Told the job's status whenever the inspections are (re)read, so the page around can show it too. */
+	onStatus?: (status: JobStatus) => void;
 }
 
 const STATUS_TONES: Record<string, string> = {
@@ -655,9 +657,13 @@ function ClosePermit({ jobId, onDone }: { jobId: string; onDone: () => void }) {
  * The job's rough-in and final inspections: the firm requests them and answers correction items,
  * the inspector of the jurisdiction schedules and records results with photos, readers see the record.
  */
-export default function InspectionsSection({ jobId, mode }: Props) {
+export default function InspectionsSection({ jobId, mode, onStatus }: Props) {
 	const listing = useResource(() => api<Listing>(`/api/jobs/${jobId}/inspections`), jobId);
 	const l = listing.data;
+	const status = l?.jobStatus;
+	useEffect(() => {
+		if (status) onStatus?.(status);
+	}, [status, onStatus]);
 	return (
 		<LoadState
 			loading={listing.loading}

@@ -47,7 +47,10 @@ type Tab = 'comments' | 'panels' | 'findings' | 'load' | 'changes';
  * The plan review screen: the submitted packet on canvas beside the revision as submitted (panels,
  * circuits, findings, load calculation), the comments pinned to it, and the decision.
  */
-export default function ReviewScreen({ job, revision, revisions, comments: initial, userId }: Props) {
+export default function ReviewScreen({ job: loaded, revision, revisions, comments: initial, userId }: Props) {
+	// An inspection result moves the job on this screen: its status comes back with the inspections.
+	const [status, setStatus] = useState(loaded.status);
+	const job = { ...loaded, status };
 	const [comments, setComments] = useState(initial);
 	const [tab, setTab] = useState<Tab>('comments');
 	const [draft, setDraft] = useState<Draft | null>(null);
@@ -98,7 +101,7 @@ export default function ReviewScreen({ job, revision, revisions, comments: initi
 					<p className="text-ink-600">
 						{job.address} · {job.firmName}
 					</p>
-					<p className="mt-1 flex flex-wrap items-center gap-2 text-sm">
+					<p className="mt-1 flex flex-wrap items-center gap-2 text-sm" data-testid="review-status">
 						<StatusTag status={job.status} />
 						{job.permitNumber && (
 							<span data-testid="permit-number">
@@ -153,7 +156,7 @@ export default function ReviewScreen({ job, revision, revisions, comments: initi
 					<h2 id="inspections-h" className="mb-3 text-lg font-bold text-ink-950">
 						Inspections
 					</h2>
-					<InspectionsSection jobId={job.id} mode="inspector" />
+					<InspectionsSection jobId={job.id} mode="inspector" onStatus={setStatus} />
 				</section>
 			)}
 

@@ -1,16 +1,7 @@
 import type { Knex } from 'knex';
 
 export type AuditEntity =
-	| 'job'
-	| 'room'
-	| 'panel'
-	| 'circuit'
-	| 'load'
-	| 'sketch'
-	| 'status'
-	| 'revision'
-	| 'comment'
-	| 'inspection';
+	'job' | 'room' | 'panel' | 'circuit' | 'load' | 'sketch' | 'status' | 'revision' | 'comment' | 'inspection';
 export type AuditAction =
 	| 'create'
 	| 'update'

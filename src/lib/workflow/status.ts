@@ -63,7 +63,13 @@ export interface Transition {
 
 /** Every allowed move. A move not listed here is refused (409, with the allowed moves). */
 export const TRANSITIONS: readonly Transition[] = [
-	{ action: 'submit', from: ['draft', 'withdrawn'], to: 'submitted', by: 'contractor', label: 'Submit for review' },
+	{
+		action: 'submit',
+		from: ['draft', 'withdrawn'],
+		to: 'submitted',
+		by: 'contractor',
+		label: 'Submit for review',
+	},
 	{
 		action: 'start-review',
 		from: ['submitted', 'resubmitted'],
@@ -78,7 +84,13 @@ export const TRANSITIONS: readonly Transition[] = [
 		by: 'inspector',
 		label: 'Request corrections',
 	},
-	{ action: 'approve', from: ['in-review'], to: 'approved', by: 'inspector', label: 'Approve and issue permit' },
+	{
+		action: 'approve',
+		from: ['in-review'],
+		to: 'approved',
+		by: 'inspector',
+		label: 'Approve and issue permit',
+	},
 	{ action: 'resubmit', from: ['corrections'], to: 'resubmitted', by: 'contractor', label: 'Resubmit' },
 	{
 		action: 'withdraw',
@@ -141,15 +153,7 @@ export const PERMIT_ISSUED: readonly JobStatus[] = [
 	'closed',
 ];
 
-/** Statuses that put a job in an inspector's queue. */
-export const QUEUE_STATUSES: readonly JobStatus[] = [
-	'submitted',
-	'in-review',
-	'corrections',
-	'resubmitted',
-	'approved',
-	'rough-in-passed',
-	'rough-in-failed',
-	'final-passed',
-	'final-failed',
-];
+/** Statuses that put a job in an inspector's queue: every status after a submission, until the permit is closed. */
+export const QUEUE_STATUSES: readonly JobStatus[] = JOB_STATUSES.filter(
+	(s) => s !== 'draft' && s !== 'closed' && s !== 'withdrawn',
+);

@@ -17,7 +17,8 @@ import {
 export function actorsFor(user: CurrentUser, job: JobRef): WorkflowActor[] {
 	const sides: WorkflowActor[] = [];
 	if (user.firms.some((f) => f.id === job.firm_id)) sides.push('contractor');
-	if (job.jurisdiction_id && user.jurisdictions.some((j) => j.id === job.jurisdiction_id)) sides.push('inspector');
+	if (job.jurisdiction_id && user.jurisdictions.some((j) => j.id === job.jurisdiction_id))
+		sides.push('inspector');
 	return sides;
 }
 
@@ -54,7 +55,9 @@ export async function applyTransition(
 		const allowed = movesFor(user, job).map((m) => ({ action: m.action, to: m.to, label: m.label }));
 		throw errors.conflict(
 			`A job that is “${JOB_STATUS_LABELS[job.status]}” cannot make this move. ${
-				allowed.length ? `Allowed now: ${allowed.map((a) => a.label).join(', ')}.` : 'No move is open to you now.'
+				allowed.length
+					? `Allowed now: ${allowed.map((a) => a.label).join(', ')}.`
+					: 'No move is open to you now.'
 			}`,
 			{ status: job.status, allowed },
 		);
