@@ -82,6 +82,12 @@ export async function otherFirmOwner(): Promise<{ client: HttpClient; firmId: st
 	return { client, ...res.body };
 }
 
+/** Removes the firm and the owner that otherFirmOwner signed up. */
+export async function removeOtherFirm(db: Knex, other: { firmId: string; userId: string }): Promise<void> {
+	await db('firms').where({ id: other.firmId }).delete();
+	await db('users').where({ id: other.userId }).delete();
+}
+
 /** Every row count of the job tables, to assert that a rejected write changed nothing. */
 export async function jobTableCounts(db: Knex): Promise<Record<string, number>> {
 	const out: Record<string, number> = {};

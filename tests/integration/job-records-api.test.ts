@@ -12,6 +12,7 @@ import {
 	otherFirmOwner,
 	removeJobs,
 	type ErrorBody,
+	removeOtherFirm,
 } from '../helpers/jobs';
 
 const db = testDb();
@@ -29,8 +30,7 @@ beforeAll(async () => {
 
 afterAll(async () => {
 	await removeJobs(db, created);
-	await db('firms').where({ id: other.firmId }).delete();
-	await db('users').where({ id: other.userId }).delete();
+	await removeOtherFirm(db, other);
 	await db.destroy();
 });
 

@@ -13,6 +13,7 @@ import {
 	removeJobs,
 	uniq,
 	type ErrorBody,
+	removeOtherFirm,
 } from '../helpers/jobs';
 
 const db = testDb();
@@ -39,8 +40,7 @@ beforeAll(async () => {
 
 afterAll(async () => {
 	await removeJobs(db, created);
-	await db('firms').where({ id: other.firmId }).delete();
-	await db('users').where({ id: other.userId }).delete();
+	await removeOtherFirm(db, other);
 	await db.destroy();
 });
 

@@ -3,7 +3,7 @@ import { DEMO_PROPERTIES } from '../../seeds/data/demo-accounts';
 import { issuePermitNumber } from '../../src/lib/workflow/permit-number';
 import { testDb } from '../helpers/db';
 import { HttpClient, signedInAs } from '../helpers/http';
-import { call, otherFirmOwner, removeJobs } from '../helpers/jobs';
+import { call, otherFirmOwner, removeJobs, removeOtherFirm } from '../helpers/jobs';
 import {
 	commentOn,
 	newJurisdictionWithInspector,
@@ -41,8 +41,7 @@ beforeAll(async () => {
 afterAll(async () => {
 	await removeJobs(db, created);
 	for (const j of jurisdictions) await removeJurisdiction(db, j);
-	await db('firms').where({ id: other.firmId }).delete();
-	await db('users').where({ id: other.userId }).delete();
+	await removeOtherFirm(db, other);
 	await db.destroy();
 });
 

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { DEMO_PROPERTIES } from '../../seeds/data/demo-accounts';
 import { testDb } from '../helpers/db';
 import { HttpClient, signedInAs } from '../helpers/http';
-import { call, otherFirmOwner, removeJobs } from '../helpers/jobs';
+import { call, otherFirmOwner, removeJobs, removeOtherFirm } from '../helpers/jobs';
 import {
 	newJurisdictionWithInspector,
 	removeJurisdiction,
@@ -36,8 +36,7 @@ afterAll(async () => {
 	await removeJobs(db, created);
 	await removeJurisdiction(db, mine);
 	await removeJurisdiction(db, elsewhere);
-	await db('firms').where({ id: other.firmId }).delete();
-	await db('users').where({ id: other.userId }).delete();
+	await removeOtherFirm(db, other);
 	await db.destroy();
 });
 

@@ -13,6 +13,7 @@ import {
 	otherFirmOwner,
 	removeJobs,
 	type ErrorBody,
+	removeOtherFirm,
 } from '../helpers/jobs';
 import { readPdf, squash } from '../helpers/pdf';
 import { newJurisdictionWithInspector, removeJurisdiction, submittedJob } from '../helpers/workflow';
@@ -49,8 +50,7 @@ afterAll(async () => {
 	await removeJurisdiction(db, ahj);
 	await removeJurisdiction(db, elsewhere);
 	for (const j of extraJurisdictions) await removeJurisdiction(db, j);
-	await db('firms').where({ id: other.firmId }).delete();
-	await db('users').where({ id: other.userId }).delete();
+	await removeOtherFirm(db, other);
 	await db.destroy();
 });
 

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, test } from 'vitest';
 import { DEMO_PROPERTIES } from '../../seeds/data/demo-accounts';
 import { testDb } from '../helpers/db';
 import { HttpClient, signedInAs } from '../helpers/http';
-import { call, otherFirmOwner, removeJobs, type ErrorBody } from '../helpers/jobs';
+import { call, otherFirmOwner, removeJobs, type ErrorBody, removeOtherFirm } from '../helpers/jobs';
 import { newJurisdictionWithInspector, removeJurisdiction, submittedJob } from '../helpers/workflow';
 
 const db = testDb();
@@ -31,8 +31,7 @@ afterAll(async () => {
 	await removeJobs(db, created);
 	await removeJurisdiction(db, ahj);
 	await removeJurisdiction(db, elsewhere);
-	await db('firms').where({ id: other.firmId }).delete();
-	await db('users').where({ id: other.userId }).delete();
+	await removeOtherFirm(db, other);
 	await db.destroy();
 });
 
