@@ -1,5 +1,6 @@
 import { useEffect, useRef, useState } from 'react';
 import { api, firstFieldMessages, messageOf } from '../../lib/client/api-client';
+import { useAction } from '../../lib/client/use-action';
 import { useResource } from '../../lib/client/use-resource';
 import { fieldErrors } from '../../lib/errors';
 import type { InspectionRecord } from '../../lib/repositories/inspections';
@@ -176,8 +177,7 @@ function RequestForm({ jobId, listing, onDone }: { jobId: string; listing: Listi
 
 function AnswerBox({ itemId, initial, onDone }: { itemId: string; initial: string; onDone: () => void }) {
 	const [answer, setAnswer] = useState(initial);
-	const [error, setError] = useState<string | null>(null);
-	const [busy, setBusy] = useState(false);
+	const { busy, error, setError, run } = useAction();
 	const submit = async (e: React.FormEvent) => {
 		e.preventDefault();
 		const parsed = inspectionItemAnswerSchema.safeParse({ answer });
@@ -185,16 +185,8 @@ function AnswerBox({ itemId, initial, onDone }: { itemId: string; initial: strin
 			setError(messages(parsed.error).answer ?? 'Write what was corrected.');
 			return;
 		}
-		setBusy(true);
-		setError(null);
-		try {
-			await api(`/api/inspection-items/${itemId}/answer`, { method: 'POST', body: parsed.data });
+		if (await run(() => api(`/api/inspection-items/${itemId}/answer`, { method: 'POST', body: parsed.data })))
 			onDone();
-		} catch (err) {
-			setError(messageOf(err));
-		} finally {
-			setBusy(false);
-		}
 	};
 	return (
 		<form
@@ -225,8 +217,7 @@ function AnswerBox({ itemId, initial, onDone }: { itemId: string; initial: strin
 
 function ScheduleForm({ inspection, onDone }: { inspection: InspectionRecord; onDone: () => void }) {
 	const [date, setDate] = useState(inspection.scheduledFor ?? inspection.preferredDates[0] ?? '');
-	const [error, setError] = useState<string | null>(null);
-	const [busy, setBusy] = useState(false);
+	const { busy, error, setError, run } = useAction();
 	const submit = async (e: React.FormEvent) => {
 		e.preventDefault();
 		const parsed = inspectionScheduleSchema.safeParse({ scheduledFor: date });
@@ -234,16 +225,8 @@ function ScheduleForm({ inspection, onDone }: { inspection: InspectionRecord; on
 			setError(messages(parsed.error).scheduledFor ?? 'Choose a date.');
 			return;
 		}
-		setBusy(true);
-		setError(null);
-		try {
-			await api(`/api/inspections/${inspection.id}`, { method: 'PATCH', body: parsed.data });
+		if (await run(() => api(`/api/inspections/${inspection.id}`, { method: 'PATCH', body: parsed.data })))
 			onDone();
-		} catch (err) {
-			setError(messageOf(err));
-		} finally {
-			setBusy(false);
-		}
 	};
 	return (
 		<form
@@ -280,8 +263,7 @@ async function uploadPhotos(inspectionId: string, files: FileList, caption: stri
 function PhotoUpload({ inspectionId, onDone }: { inspectionId: string; onDone: () => void }) {
 	const ref = useRef<HTMLInputElement>(null);
 	const [caption, setCaption] = useState('');
-	const [error, setError] = useState<string | null>(null);
-	const [busy, setBusy] = useState(false);
+	const { busy, error, setError, run } = useAction();
 	const submit = async (e: React.FormEvent) => {
 		e.preventDefault();
 		const files = ref.current?.files;
@@ -289,18 +271,10 @@ function PhotoUpload({ inspectionId, onDone }: { inspectionId: string; onDone: (
 			setError('Choose at least one PNG or JPEG photo.');
 			return;
 		}
-		setBusy(true);
-		setError(null);
-		try {
-			await uploadPhotos(inspectionId, files, caption);
-			if (ref.current) ref.current.value = '';
-			setCaption('');
-			onDone();
-		} catch (err) {
-			setError(messageOf(err));
-		} finally {
-			setBusy(false);
-		}
+		if (!(await run(() => uploadPhotos(inspectionId, files, caption)))) return;
+		if (ref.current) ref.current.value = '';
+		setCaption('');
+		onDone();
 	};
 	return (
 		<form onSubmit={submit} className="flex flex-wrap items-end gap-2" aria-label="Add photos">
@@ -446,21 +420,11 @@ function ResultForm({ inspection, onDone }: { inspection: InspectionRecord; onDo
 
 function CancelRequest({ inspection, onDone }: { inspection: InspectionRecord; onDone: () => void }) {
 	const [asking, setAsking] = useState(false);
-	const [busy, setBusy] = useState(false);
-	const [error, setError] = useState<string | null>(null);
+	const { busy, error, run } = useAction();
 	const cancel = async () => {
-		setBusy(true);
-		setError(null);
-		try {
-			await api(`/api/inspections/${inspection.id}/cancel`, { method: 'POST' });
-			setAsking(false);
-			onDone();
-		} catch (err) {
-			setError(messageOf(err));
-			setAsking(false);
-		} finally {
-			setBusy(false);
-		}
+		const done = await run(() => api(`/api/inspections/${inspection.id}/cancel`, { method: 'POST' }));
+		setAsking(false);
+		if (done) onDone();
 	};
 	return (
 		<div className="mt-3">
@@ -626,19 +590,10 @@ function InspectionCard({
 }
 
 function ClosePermit({ jobId, onDone }: { jobId: string; onDone: () => void }) {
-	const [error, setError] = useState<string | null>(null);
-	const [busy, setBusy] = useState(false);
+	const { busy, error, run } = useAction();
 	const close = async () => {
-		setBusy(true);
-		setError(null);
-		try {
-			await api(`/api/jobs/${jobId}/transitions`, { method: 'POST', body: { action: 'close' } });
+		if (await run(() => api(`/api/jobs/${jobId}/transitions`, { method: 'POST', body: { action: 'close' } })))
 			onDone();
-		} catch (err) {
-			setError(messageOf(err));
-		} finally {
-			setBusy(false);
-		}
 	};
 	return (
 		<div className="flex flex-wrap items-center gap-3 rounded-md bg-green-50 p-3 text-sm">
